@@ -1,0 +1,45 @@
+// `npm run dev`: the same database as `npm start`, the API with reload (tsx watch)
+// and the Vite dev server with HMR (proxying /api to the API).
+import { spawn } from 'node:child_process';
+import path from 'node:path';
+import { fileURLToPath } from 'node:url';
+import { fail, log, run } from './lib/run.mjs';
+import { ensureSystemPackages } from './lib/system-packages.mjs';
+import { ensureNodeModules } from './lib/node-modules.mjs';
+import { startCluster } from './lib/pg-cluster.mjs';
+import { sessionSecret } from './lib/secrets.mjs';
+import { bin } from './lib/tool.mjs';
+
+const root = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '..');
+const dataDir = path.join(root, '.data');
+
+async function main() {
+  await ensureSystemPackages(['postgresql', 'ffmpeg']);
+  await ensureNodeModules(root);
+  const cluster = await startCluster(dataDir, { preferredPort: 54329 });
+  const apiPort = process.env.API_PORT ?? '5181';
+  const env = {
+    ...process.env,
+    DATABASE_URL: cluster.url('arcbench'),
+    SESSION_SECRET: sessionSecret(dataDir),
+    STORAGE_DIR: path.join(dataDir, 'storage'),
+    PORT: apiPort,
+    API_PORT: apiPort,
+  };
+  await run(bin(root, 'tsx'), ['server/cli/seed.ts'], { cwd: root, env });
+  const children = [
+    spawn(bin(root, 'tsx'), ['watch', '--clear-screen=false', 'server/index.ts'], { cwd: root, env, stdio: 'inherit' }),
+    spawn(bin(root, 'vite'), ['--host', '127.0.0.1', '--port', '5173'], { cwd: root, env, stdio: 'inherit' }),
+  ];
+  log('Dev: app on http://127.0.0.1:5173 (HMR), API on http://127.0.0.1:' + apiPort);
+  const stop = async () => {
+    for (const c of children) c.kill('SIGTERM');
+    await Promise.all(children.map((c) => (c.exitCode === null ? new Promise((r) => c.once('exit', r)) : null)));
+    await cluster.stop();
+    process.exit(0);
+  };
+  process.on('SIGINT', stop);
+  process.on('SIGTERM', stop);
+}
+
+main().catch((err) => fail(err.message));

@@ -1,0 +1,86 @@
+// `npm test`: the same set-up as `npm start`, against a throwaway cluster in a
+// temp folder on a free port; then type-check, unit + API tests, browser tests.
+// Everything is torn down afterwards, also on failure.
+import { chmodSync, existsSync, mkdtempSync, readFileSync, rmSync } from 'node:fs';
+import os from 'node:os';
+import path from 'node:path';
+import { fileURLToPath } from 'node:url';
+import { log, run, runStatus } from './lib/run.mjs';
+import { ensureSystemPackages } from './lib/system-packages.mjs';
+import { ensureNodeModules } from './lib/node-modules.mjs';
+import { freePort, startCluster } from './lib/pg-cluster.mjs';
+import { bin } from './lib/tool.mjs';
+
+const root = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '..');
+const extraArgs = process.argv.slice(2);
+
+async function main() {
+  await ensureSystemPackages(['postgresql', 'ffmpeg', 'chromium']);
+  await ensureNodeModules(root);
+
+  const tmp = mkdtempSync(path.join(os.tmpdir(), 'arcbench-test-'));
+  chmodSync(tmp, 0o755);
+  process.env.ARCBENCH_PG_FSYNC = 'off'; // a throwaway cluster need not survive a power cut
+  const cluster = await startCluster(tmp, { preferredPort: await freePort() });
+  log(`Throwaway PostgreSQL on 127.0.0.1:${cluster.port} in ${tmp}`);
+  let cleaned = false;
+  const cleanup = async () => {
+    if (cleaned) return;
+    cleaned = true;
+    await cluster.stop();
+    rmSync(tmp, { recursive: true, force: true });
+  };
+  const onSignal = async () => {
+    await cleanup();
+    process.exit(130);
+  };
+  process.on('SIGINT', onSignal);
+  process.on('SIGTERM', onSignal);
+
+  const env = {
+    ...process.env,
+    NODE_ENV: 'test',
+    DATABASE_URL: cluster.url('arcbench_test'),
+    STORAGE_DIR: path.join(tmp, 'storage'),
+    ARCBENCH_TMP: tmp,
+    ARTIFACTS_DIR: path.join(root, 'test-artifacts'),
+  };
+  const results = [];
+  const step = async (name, cmd, args) => {
+    log(`── ${name}`);
+    const code = await runStatus(cmd, args, { cwd: root, env });
+    results.push({ name, ok: code === 0 });
+    return code === 0;
+  };
+  const report = path.join(tmp, 'vitest-report.json');
+  try {
+    await run(bin(root, 'tsx'), ['server/cli/seed.ts'], { cwd: root, env });
+    await step('type-check (tsc --noEmit)', bin(root, 'tsc'), ['--noEmit', '-p', 'tsconfig.json']);
+    await step('client build (vite build)', bin(root, 'vite'), ['build', '--logLevel', 'warn']);
+    await step('tests (vitest: unit, api, e2e)', bin(root, 'vitest'), [
+      'run',
+      '--reporter=default',
+      '--reporter=json',
+      `--outputFile=${report}`,
+      ...extraArgs,
+    ]);
+    let counts = { passed: 0, failed: 0, skipped: 0 };
+    if (existsSync(report)) {
+      const json = JSON.parse(readFileSync(report, 'utf8'));
+      counts = { passed: json.numPassedTests, failed: json.numFailedTests, skipped: json.numPendingTests + json.numTodoTests };
+    }
+    const failedSteps = results.filter((r) => !r.ok).map((r) => r.name);
+    for (const r of results) log(`${r.ok ? 'ok  ' : 'FAIL'} ${r.name}`);
+    if (counts.passed + counts.failed === 0) failedSteps.push('no test ran');
+    process.stdout.write(`\ntests: ${counts.passed} passed, ${counts.failed} failed, ${counts.skipped} skipped\n`);
+    process.exitCode = failedSteps.length === 0 && counts.failed === 0 ? 0 : 1;
+    if (process.exitCode) log(`Failed: ${failedSteps.join(', ') || 'tests'}`);
+  } finally {
+    await cleanup();
+  }
+}
+
+main().catch(async (err) => {
+  log(err.message);
+  process.exit(1);
+});

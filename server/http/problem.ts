@@ -1,0 +1,91 @@
+import type { ErrorRequestHandler, RequestHandler } from 'express';
+import { ZodError } from 'zod';
+
+/** An error the API reports to the caller as an RFC 7807 problem document. */
+export class HttpProblem extends Error {
+  constructor(
+    readonly status: number,
+    readonly title: string,
+    readonly detail: string,
+    readonly extra: Record<string, unknown> = {},
+  ) {
+    super(detail);
+  }
+}
+
+export const badRequest = (detail: string, extra?: Record<string, unknown>) => new HttpProblem(400, 'Bad request', detail, extra);
+export const unauthorized = (detail = 'Sign in to continue.') => new HttpProblem(401, 'Not signed in', detail);
+export const forbidden = (detail: string) => new HttpProblem(403, 'Not allowed', detail);
+export const notFound = (detail: string) => new HttpProblem(404, 'Not found', detail);
+export const conflict = (detail: string, extra?: Record<string, unknown>) => new HttpProblem(409, 'Conflict', detail, extra);
+export const gone = (detail: string) => new HttpProblem(410, 'Gone', detail);
+export const unprocessable = (detail: string, extra?: Record<string, unknown>) =>
+  new HttpProblem(422, 'Cannot process', detail, extra);
+
+const PROBLEM_TYPE_BASE = '/problems/';
+
+function slug(title: string): string {
+  return title.toLowerCase().replace(/[^a-z0-9]+/g, '-').replace(/(^-|-$)/g, '');
+}
+
+export function zodIssues(error: ZodError): { path: string; message: string }[] {
+  return error.issues.map((issue) => ({ path: issue.path.join('.') || '(body)', message: issue.message }));
+}
+
+export function describeZodError(error: ZodError): string {
+  return zodIssues(error)
+    .map((i) => `${i.path} ${i.message}`)
+    .join('; ');
+}
+
+interface BodyParserError extends Error {
+  type?: string;
+  status?: number;
+  limit?: number;
+}
+
+function toProblem(err: unknown): HttpProblem {
+  if (err instanceof HttpProblem) return err;
+  if (err instanceof ZodError) {
+    return new HttpProblem(400, 'Invalid request', describeZodError(err), { errors: zodIssues(err) });
+  }
+  const e = err as BodyParserError;
+  if (e?.type === 'entity.parse.failed') return badRequest('The request body is not valid JSON.');
+  if (e?.type === 'entity.too.large') {
+    return new HttpProblem(400, 'Request body too large', `The request body is larger than the ${e.limit ?? ''} byte limit.`.replace('  ', ' '));
+  }
+  if (e?.type === 'encoding.unsupported' || e?.type === 'charset.unsupported') return badRequest('Unsupported body encoding.');
+  if (typeof e?.status === 'number' && e.status >= 400 && e.status < 500) return new HttpProblem(e.status, 'Bad request', e.message);
+  return new HttpProblem(500, 'Internal error', 'Something went wrong on the server. It has been logged; try again.');
+}
+
+export function sendProblem(res: Parameters<RequestHandler>[1], problem: HttpProblem, instance?: string): void {
+  res
+    .status(problem.status)
+    .type('application/problem+json')
+    .send(
+      JSON.stringify({
+        type: `${PROBLEM_TYPE_BASE}${slug(problem.title)}`,
+        title: problem.title,
+        status: problem.status,
+        detail: problem.detail,
+        instance,
+        ...problem.extra,
+      }),
+    );
+}
+
+/** The one error middleware: everything becomes problem+json, never a stack trace. */
+export const problemHandler: ErrorRequestHandler = (err, req, res, _next) => {
+  const problem = toProblem(err);
+  if (problem.status >= 500) console.error('[api] unhandled error on', req.method, req.originalUrl, err);
+  if (res.headersSent) {
+    res.end();
+    return;
+  }
+  sendProblem(res, problem, req.originalUrl);
+};
+
+export const apiNotFound: RequestHandler = (req, res) => {
+  sendProblem(res, notFound(`No API route ${req.method} ${req.path}.`), req.originalUrl);
+};

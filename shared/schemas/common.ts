@@ -1,0 +1,29 @@
+import { z } from 'zod';
+
+export const Uuid = z.uuid({ error: 'must be an id (UUID)' });
+
+export const TeamParams = z.object({ teamId: Uuid });
+
+export const Email = z
+  .email({ error: 'must be an e-mail address' })
+  .max(254)
+  .transform((value) => value.trim().toLowerCase());
+
+export const DisplayName = z.string().trim().min(1, 'is required').max(80, 'must be at most 80 characters');
+
+/** Length is the only rule, as NIST SP 800-63B recommends (no composition rules). */
+export const NewPassword = z
+  .string()
+  .min(10, 'must be at least 10 characters')
+  .max(256, 'must be at most 256 characters');
+
+/** RFC 7807 problem document as the API sends it. */
+export const Problem = z.object({
+  type: z.string(),
+  title: z.string(),
+  status: z.number().int(),
+  detail: z.string(),
+  instance: z.string().optional(),
+  errors: z.array(z.object({ path: z.string(), message: z.string() })).optional(),
+});
+export type Problem = z.infer<typeof Problem>;
