@@ -1,0 +1,302 @@
+// Generic nonlinear least squares: a thin wrapper around ml-levenberg-marquardt
+// that adds what that library leaves to the caller:
+//  - Marquardt-style scaling: each restart re-parameterises p = p_c + s * u with
+//    s_j = 1 / ||dr/dp_j||, so the library's plain (lambda * I) damping acts like
+//    lambda * diag(J^T J) and its absolute damping limits (1e-7..1e7) mean the
+//    same thing on every problem;
+//  - central-difference Jacobians with steps relative to each parameter;
+//  - residual weighting done here (the library's own weights enter the error
+//    and the step inconsistently, so they are not used);
+//  - restarts: the library accepts uphill steps and only tracks the best point,
+//    so it is run in short bursts, each restarted from the best point so far,
+//    until the sum of squares and the parameters stop changing;
+//  - covariance from an SVD of the Jacobian at the solution (not the normal
+//    equations, which square the condition number).
+import { levenbergMarquardt } from 'ml-levenberg-marquardt';
+import { Matrix, SingularValueDecomposition } from 'ml-matrix';
+
+/** Writes the model prediction for every observation into out. */
+export type ModelFunction = (params: Float64Array, out: Float64Array) => void;
+/** Writes d(prediction)/d(param_j) into columns[j]. */
+export type JacobianFunction = (params: Float64Array, base: Float64Array, columns: Float64Array[]) => void;
+
+export interface LeastSquaresProblem {
+  observations: ArrayLike<number>;
+  /** Residual i is multiplied by weights[i] (use 1/sigma_i). */
+  weights?: ArrayLike<number>;
+  model: ModelFunction;
+  /** Optional Jacobian; defaults to central differences of model. */
+  jacobian?: JacobianFunction;
+  start: ArrayLike<number>;
+  /** Magnitude below which a parameter counts as "near zero" (floor for relative steps). */
+  typicalMagnitude?: ArrayLike<number>;
+}
+
+export interface LeastSquaresOptions {
+  /** Total Levenberg-Marquardt iterations over all restarts. */
+  maxIterations?: number;
+  /** Iterations per burst between restarts. */
+  burstIterations?: number;
+  /** Stop when the relative drop of the sum of squares over a burst is below this... */
+  rssRelTol?: number;
+  /** ...and no parameter moved by more than this relative amount. */
+  paramRelTol?: number;
+}
+
+export interface LeastSquaresResult {
+  params: number[];
+  /** Weighted residual sum of squares. */
+  rss: number;
+  dof: number;
+  /** s^2 = RSS / (N - p). */
+  residualVariance: number;
+  stdErrors: number[];
+  covariance: number[][];
+  correlation: number[][];
+  /** Unweighted residuals, observation minus prediction. */
+  residuals: number[];
+  /** Jacobian of the predictions at the solution (N x p, row-major per observation). */
+  jacobian: number[][];
+  iterations: number;
+  restarts: number;
+  converged: boolean;
+  /** Smallest singular value over largest of the weighted, column-scaled Jacobian. */
+  inverseCondition: number;
+}
+
+const CBRT_EPS = Math.cbrt(Number.EPSILON);
+
+/** Central differences with step cbrt(eps) * max(|p_j|, typical_j): balances truncation and rounding. */
+export function centralDifferenceJacobian(
+  model: ModelFunction, params: Float64Array, typical: ArrayLike<number>, columns: Float64Array[],
+): void {
+  const n = columns[0].length;
+  const plus = new Float64Array(n);
+  const minus = new Float64Array(n);
+  const p = Float64Array.from(params);
+  for (let j = 0; j < params.length; j++) {
+    const h = CBRT_EPS * Math.max(Math.abs(params[j]), typical[j]);
+    const hi = params[j] + h;
+    const lo = params[j] - h;
+    p[j] = hi; model(p, plus);
+    p[j] = lo; model(p, minus);
+    p[j] = params[j];
+    const col = columns[j];
+    const width = hi - lo; // the representable step, not 2h
+    for (let i = 0; i < n; i++) col[i] = (plus[i] - minus[i]) / width;
+  }
+}
+
+function sumSquares(obs: ArrayLike<number>, pred: Float64Array, w: ArrayLike<number> | undefined): number {
+  let s = 0;
+  for (let i = 0; i < pred.length; i++) {
+    const r = (obs[i] - pred[i]) * (w ? w[i] : 1);
+    s += r * r;
+  }
+  return s;
+}
+
+export function leastSquares(problem: LeastSquaresProblem, options: LeastSquaresOptions = {}): LeastSquaresResult {
+  const n = problem.observations.length;
+  const np = problem.start.length;
+  if (n <= np) throw new RangeError(`least squares needs more observations (${n}) than parameters (${np})`);
+  const maxIterations = options.maxIterations ?? 3000;
+  const burst = options.burstIterations ?? 12;
+  const rssRelTol = options.rssRelTol ?? 1e-14;
+  const paramRelTol = options.paramRelTol ?? 1e-10;
+  const obs = problem.observations;
+  const w = problem.weights;
+  const typical = Float64Array.from(
+    problem.typicalMagnitude ?? Array.from(problem.start, (v) => (v === 0 ? 1 : Math.abs(v) * 1e-6)),
+  );
+  const jac: JacobianFunction =
+    problem.jacobian ?? ((p, _base, cols) => centralDifferenceJacobian(problem.model, p, typical, cols));
+
+  const columns = Array.from({ length: np }, () => new Float64Array(n));
+  const pred = new Float64Array(n);
+  let p: Float64Array = Float64Array.from(problem.start);
+  problem.model(p, pred);
+  let rss = sumSquares(obs, pred, w);
+  if (!Number.isFinite(rss)) throw new Error('least squares: model is not finite at the start values');
+
+  let iterations = 0;
+  let restarts = 0;
+  let converged = false;
+  let quietBursts = 0;
+  const dataX = Array.from({ length: n }, (_, i) => i);
+  const dataY = Array.from({ length: n }, (_, i) => obs[i] * (w ? w[i] : 1));
+  const scale = new Float64Array(np);
+  const infinite = new Array(np).fill(Number.POSITIVE_INFINITY);
+  const negInfinite = new Array(np).fill(Number.NEGATIVE_INFINITY);
+
+  while (iterations < maxIterations) {
+    // Scale each parameter by its current column norm (Marquardt scaling).
+    jac(p, pred, columns);
+    for (let j = 0; j < np; j++) {
+      let norm = 0;
+      const col = columns[j];
+      for (let i = 0; i < n; i++) {
+        const v = col[i] * (w ? w[i] : 1);
+        norm += v * v;
+      }
+      norm = Math.sqrt(norm);
+      scale[j] = norm > 0 && Number.isFinite(norm) ? 1 / norm : Math.max(Math.abs(p[j]), typical[j]);
+    }
+    const centre = Float64Array.from(p);
+    const toParams = (u: ArrayLike<number>, target: Float64Array) => {
+      for (let j = 0; j < np; j++) target[j] = centre[j] + scale[j] * u[j];
+      return target;
+    };
+
+    // Cache: the library asks for the same parameter vector several times.
+    const cacheU = new Float64Array(np).fill(Number.NaN);
+    const cachePred = new Float64Array(n);
+    const cacheCols = Array.from({ length: np }, () => new Float64Array(n));
+    const jacU = new Float64Array(np).fill(Number.NaN);
+    const work = new Float64Array(np);
+    const same = (a: Float64Array, b: ArrayLike<number>) => {
+      for (let j = 0; j < np; j++) if (a[j] !== b[j]) return false;
+      return true;
+    };
+    const evalAt = (u: number[]) => {
+      if (!same(cacheU, u)) {
+        problem.model(toParams(u, work), cachePred);
+        for (let j = 0; j < np; j++) cacheU[j] = u[j];
+      }
+    };
+    const parameterizedFunction = (u: number[]) => {
+      evalAt(u);
+      return (i: number) => cachePred[i] * (w ? w[i] : 1);
+    };
+    const jacobianFunction = (u: number[]) => {
+      if (!same(jacU, u)) {
+        evalAt(u);
+        jac(toParams(u, work), cachePred, cacheCols);
+        for (let j = 0; j < np; j++) jacU[j] = u[j];
+      }
+      const row = new Array<number>(np);
+      return (i: number) => {
+        const wi = w ? w[i] : 1;
+        for (let j = 0; j < np; j++) row[j] = cacheCols[j][i] * scale[j] * wi;
+        return row.slice();
+      };
+    };
+
+    // Early bursts damp strongly enough to be safe far from the answer; once
+    // progress is slow, residuals are scaled up so the library's damping floor
+    // (1e-7) becomes negligible and the last steps are pure Gauss-Newton.
+    const polish = quietBursts > 0 || restarts % 2 === 1;
+    const residualGain = polish ? 1e4 : 1;
+    const run = levenbergMarquardt(
+      { x: dataX, y: polish ? dataY.map((v) => v * residualGain) : dataY },
+      polish
+        ? (u: number[]) => { const f = parameterizedFunction(u); return (i: number) => f(i) * residualGain; }
+        : parameterizedFunction,
+      {
+        initialValues: new Array(np).fill(0),
+        damping: polish ? 1e-6 : 1e-2,
+        maxIterations: burst,
+        errorTolerance: 0,
+        minValues: negInfinite,
+        maxValues: infinite,
+        jacobianFunction: polish
+          ? (u: number[]) => { const g = jacobianFunction(u); return (i: number) => g(i).map((v) => v * residualGain); }
+          : jacobianFunction,
+      },
+    );
+    iterations += run.iterations;
+    restarts++;
+    const pNew: Float64Array = toParams(run.parameterValues, new Float64Array(np));
+    problem.model(pNew, pred);
+    const rssNew = sumSquares(obs, pred, w);
+    if (!(rssNew <= rss)) {
+      // No improvement found in this burst: we are at the minimum to working precision.
+      problem.model(p, pred);
+      quietBursts++;
+      if (quietBursts >= 2) { converged = true; break; }
+      continue;
+    }
+    let maxRel = 0;
+    for (let j = 0; j < np; j++) {
+      maxRel = Math.max(maxRel, Math.abs(pNew[j] - p[j]) / Math.max(Math.abs(pNew[j]), typical[j]));
+    }
+    const drop = (rss - rssNew) / Math.max(rss, Number.MIN_VALUE);
+    p = pNew;
+    rss = rssNew;
+    if (drop <= rssRelTol && maxRel <= paramRelTol) {
+      quietBursts++;
+      if (quietBursts >= 2) { converged = true; break; }
+    } else if (drop < 1e-6) {
+      quietBursts = Math.max(quietBursts, 1);
+    } else {
+      quietBursts = 0;
+    }
+  }
+
+  return finishLeastSquares(problem, p, typical, jac, iterations, restarts, converged);
+}
+
+function finishLeastSquares(
+  problem: LeastSquaresProblem, p: Float64Array, typical: Float64Array, jac: JacobianFunction,
+  iterations: number, restarts: number, converged: boolean,
+): LeastSquaresResult {
+  const n = problem.observations.length;
+  const np = p.length;
+  const w = problem.weights;
+  const pred = new Float64Array(n);
+  problem.model(p, pred);
+  const columns = Array.from({ length: np }, () => new Float64Array(n));
+  jac(p, pred, columns);
+  void typical;
+  const residuals = Array.from(pred, (v, i) => problem.observations[i] - v);
+  let rss = 0;
+  for (let i = 0; i < n; i++) rss += (residuals[i] * (w ? w[i] : 1)) ** 2;
+  const dof = n - np;
+  const s2 = rss / dof;
+
+  // Column-scale the weighted Jacobian before the SVD so the singular values
+  // reflect the problem rather than the units of the parameters.
+  const colNorm = new Float64Array(np);
+  const J = new Matrix(n, np);
+  for (let j = 0; j < np; j++) {
+    let norm = 0;
+    for (let i = 0; i < n; i++) norm += (columns[j][i] * (w ? w[i] : 1)) ** 2;
+    colNorm[j] = Math.sqrt(norm) || 1;
+    for (let i = 0; i < n; i++) J.set(i, j, (columns[j][i] * (w ? w[i] : 1)) / colNorm[j]);
+  }
+  const svd = new SingularValueDecomposition(J, { computeLeftSingularVectors: false, autoTranspose: true });
+  const sv = svd.diagonal;
+  const V = svd.rightSingularVectors;
+  const sMax = Math.max(...sv);
+  const sMin = Math.min(...sv);
+  const covariance: number[][] = [];
+  for (let a = 0; a < np; a++) {
+    const row: number[] = [];
+    for (let b = 0; b < np; b++) {
+      let c = 0;
+      for (let k = 0; k < np; k++) {
+        if (sv[k] > sMax * 1e-15) c += (V.get(a, k) * V.get(b, k)) / (sv[k] * sv[k]);
+      }
+      row.push((s2 * c) / (colNorm[a] * colNorm[b]));
+    }
+    covariance.push(row);
+  }
+  const stdErrors = covariance.map((row, a) => Math.sqrt(row[a]));
+  const correlation = covariance.map((row, a) => row.map((c, b) => c / (stdErrors[a] * stdErrors[b])));
+  const jacobianRows = Array.from({ length: n }, (_, i) => Array.from({ length: np }, (_, j) => columns[j][i]));
+  return {
+    params: Array.from(p),
+    rss,
+    dof,
+    residualVariance: s2,
+    stdErrors,
+    covariance,
+    correlation,
+    residuals,
+    jacobian: jacobianRows,
+    iterations,
+    restarts,
+    converged,
+    inverseCondition: sMax > 0 ? sMin / sMax : 0,
+  };
+}
