@@ -1,6 +1,5 @@
 import { existsSync } from 'node:fs';
 import path from 'node:path';
-import { fileURLToPath } from 'node:url';
 import connectPgSimple from 'connect-pg-simple';
 import express, { type RequestHandler } from 'express';
 import session from 'express-session';
@@ -11,7 +10,6 @@ import { HttpProblem, apiNotFound, problemHandler, sendProblem } from './http/pr
 import { RouteTable } from './http/route-table';
 import { registerAllRoutes } from './routes/registry';
 
-const root = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '..');
 export const CSRF_HEADER = 'x-arcbench-request';
 const SAFE_METHODS = new Set(['GET', 'HEAD', 'OPTIONS']);
 
@@ -67,7 +65,7 @@ export function createApp(deps: AppDeps) {
   app.use(api.router);
   app.use('/api', apiNotFound);
 
-  const dist = path.join(root, 'dist');
+  const dist = deps.config.clientDist;
   if (existsSync(path.join(dist, 'index.html'))) {
     app.use('/assets', express.static(path.join(dist, 'assets'), { immutable: true, maxAge: '1y', fallthrough: false }));
     app.use(express.static(dist, { index: false }));

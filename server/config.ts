@@ -18,6 +18,8 @@ export interface Config {
   /** Start the job worker inside the server process. */
   inProcessWorker: boolean;
   jpegQuality: number;
+  /** The built client (vite build output) to serve, if present. */
+  clientDist: string;
 }
 
 function int(value: string | undefined, fallback: number): number {
@@ -47,5 +49,6 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
     signInLimitPerWindow: int(env.SIGN_IN_LIMIT, 10),
     inProcessWorker: env.IN_PROCESS_WORKER !== 'false',
     jpegQuality: int(env.JPEG_QUALITY, 90),
+    clientDist: path.resolve(env.CLIENT_DIST ?? 'dist'),
   };
 }

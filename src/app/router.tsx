@@ -1,5 +1,6 @@
 import { BrowserRouter, Route, Routes } from 'react-router';
 
+// Each feature contributes its pages here; features never import each other.
 export function AppRouter() {
   return (
     <BrowserRouter>
