@@ -63,7 +63,7 @@ const A71 = 35 / 384, A73 = 500 / 1113, A74 = 125 / 192, A75 = -2187 / 6784, A76
 const E1 = 71 / 57600, E3 = -71 / 16695, E4 = 71 / 1920, E5 = -17253 / 339200, E6 = 22 / 525, E7 = -1 / 40;
 // Dense-output coefficients from Hairer's DOPRI5 (Hairer, Norsett & Wanner, Solving ODEs I).
 const D1 = -12715105075 / 11282082432, D3 = 87487479700 / 32700410799, D4 = -10690763975 / 1880347072;
-const D5 = 701980252875 / 199316789632, D6 = -1638688 / 1237839, D7 = 44764047 / 29380423;
+const D5 = 701980252875 / 199316789632, D6 = -1453857185 / 822651844, D7 = 69997945 / 29380423;
 
 /** Reusable work arrays so repeated integrations (inside a fit) allocate once. */
 export class Dp45Workspace {

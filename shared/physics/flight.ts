@@ -103,7 +103,9 @@ export function simulateTrajectory(model: FlightModel, launch: LaunchState, opti
     times = Array.from({ length: 201 }, (_, i) => (tEndRun * i) / 200);
   }
   const out = new Float64Array(times.length * 4);
-  const run = integrateDp45(f, 0, y0, Math.max(tEndRun, 1e-12), tol, { times, out }, event);
+  // With a stop height the second run repeats the probe's steps and stops at the same event.
+  const tRun = event && !options.timesS ? tMax : Math.max(tEndRun, 1e-12);
+  const run = integrateDp45(f, 0, y0, tRun, tol, { times, out }, event);
   const points: TrajectoryPoint[] = [];
   for (let i = 0; i < run.samplesFilled; i++) {
     points.push({ tS: times[i], xM: out[4 * i], yM: out[4 * i + 1], vxMps: out[4 * i + 2], vyMps: out[4 * i + 3] });
