@@ -1,14 +1,13 @@
 // `npm test`: the same set-up as `npm start`, against a throwaway cluster in a
 // temp folder on a free port; then type-check, unit + API tests, browser tests.
 // Everything is torn down afterwards, also on failure.
-import { chmodSync, existsSync, mkdtempSync, readFileSync, rmSync } from 'node:fs';
-import os from 'node:os';
+import { existsSync, readFileSync } from 'node:fs';
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
-import { log, run, runStatus } from './lib/run.mjs';
+import { log, runStatus } from './lib/run.mjs';
 import { ensureSystemPackages } from './lib/system-packages.mjs';
 import { ensureNodeModules } from './lib/node-modules.mjs';
-import { freePort, startCluster } from './lib/pg-cluster.mjs';
+import { startThrowaway } from './lib/throwaway.mjs';
 import { bin } from './lib/tool.mjs';
 
 const root = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '..');
@@ -18,34 +17,7 @@ async function main() {
   await ensureSystemPackages(['postgresql', 'ffmpeg', 'chromium']);
   await ensureNodeModules(root);
 
-  const tmp = mkdtempSync(path.join(os.tmpdir(), 'arcbench-test-'));
-  chmodSync(tmp, 0o755);
-  process.env.ARCBENCH_PG_FSYNC = 'off'; // a throwaway cluster need not survive a power cut
-  const cluster = await startCluster(tmp, { preferredPort: await freePort() });
-  log(`Throwaway PostgreSQL on 127.0.0.1:${cluster.port} in ${tmp}`);
-  let cleaned = false;
-  const cleanup = async () => {
-    if (cleaned) return;
-    cleaned = true;
-    await cluster.stop();
-    rmSync(tmp, { recursive: true, force: true });
-  };
-  const onSignal = async () => {
-    await cleanup();
-    process.exit(130);
-  };
-  process.on('SIGINT', onSignal);
-  process.on('SIGTERM', onSignal);
-
-  const env = {
-    ...process.env,
-    DATABASE_URL: cluster.url('arcbench_test'),
-    STORAGE_DIR: path.join(tmp, 'storage'),
-    ARCBENCH_TMP: tmp,
-    ARTIFACTS_DIR: path.join(root, 'test-artifacts'),
-    // The test build goes to the temp folder, so parallel runs never share dist/.
-    CLIENT_DIST: path.join(tmp, 'dist'),
-  };
+  const { tmp, env, cleanup } = await startThrowaway(root);
   const results = [];
   const step = async (name, cmd, args) => {
     log(`── ${name}`);
@@ -55,7 +27,6 @@ async function main() {
   };
   const report = path.join(tmp, 'vitest-report.json');
   try {
-    await run(bin(root, 'tsx'), ['server/cli/seed.ts'], { cwd: root, env });
     // SKIP_TYPECHECK=1 / SKIP_BUILD=1 shorten a developer's focused run (`npm test -- tests/api/x.test.ts`); CI never sets them.
     if (!process.env.SKIP_TYPECHECK) await step('type-check (tsc --noEmit)', bin(root, 'tsc'), ['--noEmit', '-p', 'tsconfig.json']);
     if (!process.env.SKIP_BUILD) await step('client build (vite build)', bin(root, 'vite'), ['build', '--logLevel', 'warn', '--outDir', env.CLIENT_DIST, '--emptyOutDir']);
