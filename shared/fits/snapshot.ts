@@ -1,0 +1,66 @@
+// What a stored fit remembers about its inputs. `fitInput` is exactly what was
+// handed to fitShot, so recomputing from it reproduces the result bit for bit;
+// everything else says where those numbers came from (pixels, calibration,
+// conditions) so a reviewer can trace each one.
+import type { FitShotInput } from '../physics/types';
+
+export interface SnapshotMark {
+  frameNumber: number;
+  tS: number;
+  uPx: number;
+  vPx: number;
+  xM: number;
+  yM: number;
+}
+
+/** Where a standard uncertainty came from: a record, or a stated default. */
+export interface UncertaintyNote {
+  value: number;
+  source: string;
+}
+
+export interface FitInputSnapshot {
+  schemaVersion: 1;
+  shot: {
+    id: string;
+    label: string;
+    airTempC: number | null;
+    stationPressurePa: number | null;
+    relativeHumidityPct: number | null;
+    chamberPressurePa: number | null;
+    elevationDeg: number | null;
+  };
+  projectile: { id: string; name: string; massKg: number; diameterM: number; referenceAreaM2: number | null };
+  launcher: {
+    id: string;
+    name: string;
+    boreM: number | null;
+    barrelLengthM: number | null;
+    chamberVolumeM3: number | null;
+  } | null;
+  clip: { id: string; frameRateHz: number | null };
+  calibration: {
+    id: string;
+    version: number;
+    pixelsPerMetre: number;
+    scaleRelUncertainty: number | null;
+    /** The calibration record as stored (origin, level, scale points), for the report. */
+    record: Record<string, unknown>;
+  };
+  track: { id: string; kind: string; marksRevision: number };
+  marks: SnapshotMark[];
+  muzzle: { trackId: string; uPx: number; vPx: number; xM: number; yM: number } | null;
+  air: {
+    densityKgM3: number;
+    temperatureK: number;
+    /** How the density was obtained: from the shot's conditions or a standard atmosphere. */
+    source: string;
+  };
+  uncertainties: {
+    massKg: UncertaintyNote;
+    diameterM: UncertaintyNote;
+    airDensityKgM3: UncertaintyNote;
+    scaleRelative: UncertaintyNote;
+  };
+  fitInput: FitShotInput;
+}
