@@ -10,15 +10,19 @@
 //  - restarts: the library accepts uphill steps and only tracks the best point,
 //    so it is run in short bursts, each restarted from the best point so far,
 //    until the sum of squares and the parameters stop changing;
-//  - covariance from an SVD of the Jacobian at the solution (not the normal
+//  - covariance from a QR of the Jacobian at the solution (not the normal
 //    equations, which square the condition number).
 import { levenbergMarquardt } from 'ml-levenberg-marquardt';
-import { Matrix, SingularValueDecomposition } from 'ml-matrix';
+import { householderQr, inverseNormalFromR } from './linear-least-squares';
 
 /** Writes the model prediction for every observation into out. */
 export type ModelFunction = (params: Float64Array, out: Float64Array) => void;
-/** Writes d(prediction)/d(param_j) into columns[j]. */
-export type JacobianFunction = (params: Float64Array, base: Float64Array, columns: Float64Array[]) => void;
+/**
+ * Writes d(prediction)/d(param_j) into columns[j]. accurate is true for the
+ * final covariance; during iterations a cheaper (e.g. forward-difference)
+ * Jacobian is enough because it only steers the steps.
+ */
+export type JacobianFunction = (params: Float64Array, base: Float64Array, columns: Float64Array[], accurate: boolean) => void;
 
 export interface LeastSquaresProblem {
   observations: ArrayLike<number>;
@@ -109,8 +113,23 @@ export function leastSquares(problem: LeastSquaresProblem, options: LeastSquares
   const typical = Float64Array.from(
     problem.typicalMagnitude ?? Array.from(problem.start, (v) => (v === 0 ? 1 : Math.abs(v) * 1e-6)),
   );
-  const jac: JacobianFunction =
+  const rawJac: JacobianFunction =
     problem.jacobian ?? ((p, _base, cols) => centralDifferenceJacobian(problem.model, p, typical, cols));
+  // The Jacobian used for scaling at a restart is the one the library asks for
+  // first, so remember the last one by its exact parameter vector.
+  const lastJacP = new Float64Array(np).fill(Number.NaN);
+  const lastJacCols = Array.from({ length: np }, () => new Float64Array(n));
+  let lastJacAccurate = false;
+  const jac: JacobianFunction = (p, base, cols, accurate) => {
+    let hit = accurate ? lastJacAccurate : true;
+    for (let j = 0; hit && j < np; j++) if (lastJacP[j] !== p[j]) hit = false;
+    if (!hit) {
+      rawJac(p, base, lastJacCols, accurate);
+      lastJacP.set(p);
+      lastJacAccurate = accurate;
+    }
+    for (let j = 0; j < np; j++) cols[j].set(lastJacCols[j]);
+  };
 
   const columns = Array.from({ length: np }, () => new Float64Array(n));
   const pred = new Float64Array(n);
@@ -124,14 +143,13 @@ export function leastSquares(problem: LeastSquaresProblem, options: LeastSquares
   let converged = false;
   let quietBursts = 0;
   const dataX = Array.from({ length: n }, (_, i) => i);
-  const dataY = Array.from({ length: n }, (_, i) => obs[i] * (w ? w[i] : 1));
   const scale = new Float64Array(np);
   const infinite = new Array(np).fill(Number.POSITIVE_INFINITY);
   const negInfinite = new Array(np).fill(Number.NEGATIVE_INFINITY);
 
   while (iterations < maxIterations) {
     // Scale each parameter by its current column norm (Marquardt scaling).
-    jac(p, pred, columns);
+    jac(p, pred, columns, false);
     for (let j = 0; j < np; j++) {
       let norm = 0;
       const col = columns[j];
@@ -164,56 +182,51 @@ export function leastSquares(problem: LeastSquaresProblem, options: LeastSquares
         for (let j = 0; j < np; j++) cacheU[j] = u[j];
       }
     };
+    // Early bursts damp strongly enough to be safe far from the answer; the
+    // bursts in between (and all bursts once progress is slow) scale the
+    // residuals up so the library's damping floor (1e-7) becomes negligible and
+    // the last steps are essentially Gauss-Newton.
+    const polish = quietBursts > 0 || restarts % 2 === 1;
+    const gain = polish ? 1e4 : 1;
+    const wEff = new Float64Array(n);
+    const dataY = new Array<number>(n);
+    for (let i = 0; i < n; i++) { wEff[i] = (w ? w[i] : 1) * gain; dataY[i] = obs[i] * wEff[i]; }
     const parameterizedFunction = (u: number[]) => {
       evalAt(u);
-      return (i: number) => cachePred[i] * (w ? w[i] : 1);
+      return (i: number) => cachePred[i] * wEff[i];
     };
     const jacobianFunction = (u: number[]) => {
       if (!same(jacU, u)) {
         evalAt(u);
-        jac(toParams(u, work), cachePred, cacheCols);
+        jac(toParams(u, work), cachePred, cacheCols, false);
         for (let j = 0; j < np; j++) jacU[j] = u[j];
       }
+      // The library copies each row straight into its matrix, so one buffer is reused.
       const row = new Array<number>(np);
       return (i: number) => {
-        const wi = w ? w[i] : 1;
-        for (let j = 0; j < np; j++) row[j] = cacheCols[j][i] * scale[j] * wi;
-        return row.slice();
+        for (let j = 0; j < np; j++) row[j] = cacheCols[j][i] * scale[j] * wEff[i];
+        return row;
       };
     };
-
-    // Early bursts damp strongly enough to be safe far from the answer; once
-    // progress is slow, residuals are scaled up so the library's damping floor
-    // (1e-7) becomes negligible and the last steps are pure Gauss-Newton.
-    const polish = quietBursts > 0 || restarts % 2 === 1;
-    const residualGain = polish ? 1e4 : 1;
-    const run = levenbergMarquardt(
-      { x: dataX, y: polish ? dataY.map((v) => v * residualGain) : dataY },
-      polish
-        ? (u: number[]) => { const f = parameterizedFunction(u); return (i: number) => f(i) * residualGain; }
-        : parameterizedFunction,
-      {
-        initialValues: new Array(np).fill(0),
-        damping: polish ? 1e-6 : 1e-2,
-        maxIterations: burst,
-        errorTolerance: 0,
-        minValues: negInfinite,
-        maxValues: infinite,
-        jacobianFunction: polish
-          ? (u: number[]) => { const g = jacobianFunction(u); return (i: number) => g(i).map((v) => v * residualGain); }
-          : jacobianFunction,
-      },
-    );
+    const run = levenbergMarquardt({ x: dataX, y: dataY }, parameterizedFunction, {
+      initialValues: new Array(np).fill(0),
+      damping: polish ? 1e-6 : 1e-2,
+      maxIterations: burst,
+      errorTolerance: 0,
+      minValues: negInfinite,
+      maxValues: infinite,
+      jacobianFunction,
+    });
     iterations += run.iterations;
     restarts++;
     const pNew: Float64Array = toParams(run.parameterValues, new Float64Array(np));
     problem.model(pNew, pred);
     const rssNew = sumSquares(obs, pred, w);
     if (!(rssNew <= rss)) {
-      // No improvement found in this burst: we are at the minimum to working precision.
+      // The burst found nothing better: the start is the minimum to working precision.
       problem.model(p, pred);
-      quietBursts++;
-      if (quietBursts >= 2) { converged = true; break; }
+      if (polish) { converged = true; break; }
+      quietBursts = 1;
       continue;
     }
     let maxRel = 0;
@@ -223,14 +236,10 @@ export function leastSquares(problem: LeastSquaresProblem, options: LeastSquares
     const drop = (rss - rssNew) / Math.max(rss, Number.MIN_VALUE);
     p = pNew;
     rss = rssNew;
-    if (drop <= rssRelTol && maxRel <= paramRelTol) {
-      quietBursts++;
-      if (quietBursts >= 2) { converged = true; break; }
-    } else if (drop < 1e-6) {
-      quietBursts = Math.max(quietBursts, 1);
-    } else {
-      quietBursts = 0;
-    }
+    const quiet = drop <= rssRelTol && maxRel <= paramRelTol;
+    // Converged only when an undamped (polish) burst could not improve either.
+    if (quiet && polish) { converged = true; break; }
+    quietBursts = quiet || drop < 1e-6 ? 1 : 0;
   }
 
   return finishLeastSquares(problem, p, typical, jac, iterations, restarts, converged);
@@ -246,7 +255,7 @@ function finishLeastSquares(
   const pred = new Float64Array(n);
   problem.model(p, pred);
   const columns = Array.from({ length: np }, () => new Float64Array(n));
-  jac(p, pred, columns);
+  jac(p, pred, columns, true);
   void typical;
   const residuals = Array.from(pred, (v, i) => problem.observations[i] - v);
   let rss = 0;
@@ -254,33 +263,20 @@ function finishLeastSquares(
   const dof = n - np;
   const s2 = rss / dof;
 
-  // Column-scale the weighted Jacobian before the SVD so the singular values
-  // reflect the problem rather than the units of the parameters.
+  // Column-scale the weighted Jacobian so the conditioning reflects the
+  // problem rather than the parameter units, then QR it and take the SVD of
+  // the small triangle (same singular values as J, far cheaper for long J).
   const colNorm = new Float64Array(np);
-  const J = new Matrix(n, np);
-  for (let j = 0; j < np; j++) {
+  const scaled = Array.from({ length: np }, (_, j) => {
+    const c = new Float64Array(n);
     let norm = 0;
-    for (let i = 0; i < n; i++) norm += (columns[j][i] * (w ? w[i] : 1)) ** 2;
+    for (let i = 0; i < n; i++) { c[i] = columns[j][i] * (w ? w[i] : 1); norm += c[i] * c[i]; }
     colNorm[j] = Math.sqrt(norm) || 1;
-    for (let i = 0; i < n; i++) J.set(i, j, (columns[j][i] * (w ? w[i] : 1)) / colNorm[j]);
-  }
-  const svd = new SingularValueDecomposition(J, { computeLeftSingularVectors: false, autoTranspose: true });
-  const sv = svd.diagonal;
-  const V = svd.rightSingularVectors;
-  const sMax = Math.max(...sv);
-  const sMin = Math.min(...sv);
-  const covariance: number[][] = [];
-  for (let a = 0; a < np; a++) {
-    const row: number[] = [];
-    for (let b = 0; b < np; b++) {
-      let c = 0;
-      for (let k = 0; k < np; k++) {
-        if (sv[k] > sMax * 1e-15) c += (V.get(a, k) * V.get(b, k)) / (sv[k] * sv[k]);
-      }
-      row.push((s2 * c) / (colNorm[a] * colNorm[b]));
-    }
-    covariance.push(row);
-  }
+    for (let i = 0; i < n; i++) c[i] /= colNorm[j];
+    return c;
+  });
+  const { inverse, inverseCondition } = inverseNormalFromR(householderQr(scaled));
+  const covariance = inverse.map((row, a) => row.map((v, b) => (s2 * v) / (colNorm[a] * colNorm[b])));
   const stdErrors = covariance.map((row, a) => Math.sqrt(row[a]));
   const correlation = covariance.map((row, a) => row.map((c, b) => c / (stdErrors[a] * stdErrors[b])));
   const jacobianRows = Array.from({ length: n }, (_, i) => Array.from({ length: np }, (_, j) => columns[j][i]));
@@ -297,6 +293,6 @@ function finishLeastSquares(
     iterations,
     restarts,
     converged,
-    inverseCondition: sMax > 0 ? sMin / sMax : 0,
+    inverseCondition,
   };
 }

@@ -1,0 +1,112 @@
+// Quadratic-drag fit: joint nonlinear least squares of the x and y residuals
+// of every mark. Parameters, in this order: x0 (m), y0 (m), launch speed (m/s),
+// launch angle (rad), k (1/m), all at the time of the first mark.
+//
+// Not fitted: wind and a time offset. Over a clip of a second or less a
+// steady wind and the drag constant are nearly indistinguishable, and the
+// time origin is fixed by the first mark, so adding them would only inflate
+// the intervals. k is left unconstrained (negative values are allowed) so its
+// interval can honestly include zero.
+import { STANDARD_GRAVITY_MPS2 } from './constants';
+import { PositionSampler, type FlightModel, type LaunchState } from './flight';
+import { leastSquares, type LeastSquaresResult } from './least-squares';
+import type { Mark } from './types';
+
+export const DRAG_PARAMETER_NAMES = ['x0M', 'y0M', 'launchSpeedMps', 'launchAngleRad', 'dragK_perM'] as const;
+
+export interface DragFitOptions {
+  gravityMps2?: number;
+  /** Start [x0, y0, vx, vy], normally from the drag-free fit. */
+  startState: [number, number, number, number];
+  /** A plausible k for this body (from a handbook Cd); sets the step and scale for k near zero. */
+  typicalK_perM: number;
+}
+
+export interface DragFit {
+  fit: LeastSquaresResult;
+  tRefS: number;
+  /** Evaluate the fitted model (or any parameter vector) at the mark times. */
+  predict: (params: ArrayLike<number>) => { x: Float64Array; y: Float64Array };
+}
+
+export function launchFromParams(p: ArrayLike<number>): LaunchState {
+  return { xM: p[0], yM: p[1], vxMps: p[2] * Math.cos(p[3]), vyMps: p[2] * Math.sin(p[3]) };
+}
+
+const CBRT_EPS = Math.cbrt(Number.EPSILON);
+const SQRT_EPS = Math.sqrt(Number.EPSILON);
+
+export function fitQuadraticDrag(marks: Mark[], options: DragFitOptions): DragFit {
+  const n = marks.length;
+  const g = options.gravityMps2 ?? STANDARD_GRAVITY_MPS2;
+  const times = Float64Array.from(marks, (m) => m.tS);
+  const sampler = new PositionSampler(times);
+  const xs = new Float64Array(n);
+  const ys = new Float64Array(n);
+  const model = (p: ArrayLike<number>): FlightModel => ({ dragK_perM: p[4], gravityMps2: g });
+
+  const observations = new Float64Array(2 * n);
+  for (let i = 0; i < n; i++) { observations[i] = marks[i].xM; observations[n + i] = marks[i].yM; }
+  const weights = marks.some((m) => m.sigmaM !== undefined)
+    ? Float64Array.from({ length: 2 * n }, (_, i) => 1 / (marks[i % n].sigmaM as number))
+    : undefined;
+
+  const [sx0, sy0, svx, svy] = options.startState;
+  const speed0 = Math.hypot(svx, svy);
+  let extent = 0;
+  for (const m of marks) extent = Math.max(extent, Math.abs(m.xM - sx0), Math.abs(m.yM - sy0));
+  const typical = Float64Array.from([
+    Math.max(extent, 1e-3), Math.max(extent, 1e-3), Math.max(speed0, 1e-3), 0.1, Math.abs(options.typicalK_perM) || 1e-3,
+  ]);
+
+  const write = (out: Float64Array) => {
+    for (let i = 0; i < n; i++) { out[i] = xs[i]; out[n + i] = ys[i]; }
+  };
+  const evaluate = (p: Float64Array, out: Float64Array) => {
+    sampler.sample(model(p), launchFromParams(p), xs, ys);
+    write(out);
+  };
+  // Jacobian by central differences on a frozen step sequence (see dp45.ts):
+  // the base run records its steps and every perturbed run replays them.
+  const plus = new Float64Array(2 * n);
+  const minus = new Float64Array(2 * n);
+  // While iterating, forward differences (half the integrations) steer well
+  // enough; the final covariance uses central differences.
+  const jacobian = (p: Float64Array, _base: Float64Array, cols: Float64Array[], accurate: boolean) => {
+    const steps = sampler.sample(model(p), launchFromParams(p), xs, ys);
+    if (!accurate) write(minus);
+    const q = Float64Array.from(p);
+    for (let j = 0; j < 5; j++) {
+      const h = (accurate ? CBRT_EPS : SQRT_EPS) * Math.max(Math.abs(p[j]), typical[j]);
+      const hi = p[j] + h, lo = accurate ? p[j] - h : p[j];
+      q[j] = hi; sampler.sample(model(q), launchFromParams(q), xs, ys, steps); write(plus);
+      if (accurate) { q[j] = lo; sampler.sample(model(q), launchFromParams(q), xs, ys, steps); write(minus); }
+      q[j] = p[j];
+      const width = hi - lo;
+      const col = cols[j];
+      for (let i = 0; i < 2 * n; i++) col[i] = (plus[i] - minus[i]) / width;
+    }
+  };
+
+  const fit = leastSquares(
+    {
+      observations,
+      weights,
+      model: evaluate,
+      jacobian,
+      start: [sx0, sy0, speed0, Math.atan2(svy, svx), 0],
+      typicalMagnitude: typical,
+    },
+    { maxIterations: 400, burstIterations: 6, rssRelTol: 1e-12, paramRelTol: 1e-9 },
+  );
+
+  return {
+    fit,
+    tRefS: times[0],
+    predict: (params) => {
+      const px = new Float64Array(n), py = new Float64Array(n);
+      sampler.sample(model(params), launchFromParams(params), px, py);
+      return { x: px, y: py };
+    },
+  };
+}
