@@ -1,6 +1,7 @@
 import { doublePrecision, index, integer, jsonb, pgTable, text, timestamp, uuid } from 'drizzle-orm/pg-core';
 import type { FitShotResult } from '../../../shared/physics/types';
 import type { FitInputSnapshot } from '../../../shared/fits/snapshot';
+import type { FitState } from '../../../shared/schemas/fits';
 import { shots } from './records';
 import { teams } from './teams';
 import { users } from './users';
@@ -10,8 +11,6 @@ import { users } from './users';
 // clip, track and calibration are kept as plain ids (no foreign keys) on purpose:
 // the snapshot is self-contained, and a reviewed fit must survive re-marking or
 // the deletion of the track it came from.
-export const FIT_STATES = ['awaiting-review', 'approved', 'rejected', 'stale'] as const;
-export type FitState = (typeof FIT_STATES)[number];
 
 export const fits = pgTable(
   'fits',

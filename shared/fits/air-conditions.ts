@@ -1,0 +1,69 @@
+// Air density for a fit from the shot's recorded conditions, with a standard
+// uncertainty propagated from how well those conditions are usually known.
+import { humidAirDensityKgM3 } from '../physics/air';
+import { SEA_LEVEL_TEMPERATURE_K, ZERO_CELSIUS_K } from '../physics/constants';
+
+/**
+ * Standard uncertainties of field weather readings. Common practice for a
+ * hand-held weather meter at the firing point, not a calibrated station:
+ * ±0.5 K, ±50 Pa, ±5 %RH (one sigma).
+ */
+export const CONDITION_SIGMAS = { temperatureK: 0.5, pressurePa: 50, relativeHumidityPct: 5 } as const;
+
+/** US Standard Atmosphere 1976 sea-level density, used when the shot has no conditions. */
+export const STANDARD_SEA_LEVEL_DENSITY_KG_M3 = 1.225;
+/**
+ * Relative uncertainty of assuming the standard sea-level density: ordinary
+ * weather and modest site altitude move density by several per cent (from
+ * memory: about ±5 % between a hot and a cold day at sea level), so 3 % (one sigma).
+ */
+export const STANDARD_DENSITY_REL_SIGMA = 0.03;
+/** Relative humidity assumed when none was recorded, with a wide sigma. */
+const DEFAULT_RH_PCT = 50;
+const DEFAULT_RH_SIGMA_PCT = 29; // uniform over 0..100 %: 100/√12 (GUM §4.3.7)
+
+export interface ShotConditions {
+  airTempC: number | null;
+  stationPressurePa: number | null;
+  relativeHumidityPct: number | null;
+}
+
+export interface AirForFit {
+  densityKgM3: number;
+  densitySigmaKgM3: number;
+  temperatureK: number;
+  source: string;
+  sigmaSource: string;
+}
+
+export function airForFit(c: ShotConditions): AirForFit {
+  if (c.airTempC === null || c.stationPressurePa === null) {
+    return {
+      densityKgM3: STANDARD_SEA_LEVEL_DENSITY_KG_M3,
+      densitySigmaKgM3: STANDARD_SEA_LEVEL_DENSITY_KG_M3 * STANDARD_DENSITY_REL_SIGMA,
+      temperatureK: c.airTempC === null ? SEA_LEVEL_TEMPERATURE_K : c.airTempC + ZERO_CELSIUS_K,
+      source: 'US Standard Atmosphere 1976 at sea level (the shot has no air temperature and station pressure)',
+      sigmaSource: 'stated default: 3 % for weather and site altitude not recorded',
+    };
+  }
+  const rhMeasured = c.relativeHumidityPct !== null;
+  const rhPct = c.relativeHumidityPct ?? DEFAULT_RH_PCT;
+  const rhSigma = rhMeasured ? CONDITION_SIGMAS.relativeHumidityPct : DEFAULT_RH_SIGMA_PCT;
+  const rho = (tC: number, p: number, rh: number) =>
+    humidAirDensityKgM3({ temperatureC: tC, pressurePa: p, relativeHumidity: Math.min(1, Math.max(0, rh / 100)) });
+  const value = rho(c.airTempC, c.stationPressurePa, rhPct);
+  // First-order propagation with central differences; the inputs are independent.
+  const dT = (rho(c.airTempC + 0.1, c.stationPressurePa, rhPct) - rho(c.airTempC - 0.1, c.stationPressurePa, rhPct)) / 0.2;
+  const dP = (rho(c.airTempC, c.stationPressurePa + 10, rhPct) - rho(c.airTempC, c.stationPressurePa - 10, rhPct)) / 20;
+  const h = Math.min(1, rhPct, 100 - rhPct) || 1;
+  const dRh = (rho(c.airTempC, c.stationPressurePa, Math.min(100, rhPct + h)) - rho(c.airTempC, c.stationPressurePa, Math.max(0, rhPct - h))) / (2 * h);
+  const sigma = Math.hypot(dT * CONDITION_SIGMAS.temperatureK, dP * CONDITION_SIGMAS.pressurePa, dRh * rhSigma);
+  return {
+    densityKgM3: value,
+    densitySigmaKgM3: sigma,
+    temperatureK: c.airTempC + ZERO_CELSIUS_K,
+    source: `humid-air ideal-gas mixture (Buck 1981 vapour pressure) from ${c.airTempC} °C, ${c.stationPressurePa} Pa` +
+      (rhMeasured ? `, ${rhPct} %RH` : ', humidity not recorded (50 %RH assumed)'),
+    sigmaSource: `propagated from ±${CONDITION_SIGMAS.temperatureK} K, ±${CONDITION_SIGMAS.pressurePa} Pa, ±${rhSigma} %RH (common practice for a field weather meter)`,
+  };
+}
