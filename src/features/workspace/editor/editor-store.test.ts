@@ -1,0 +1,178 @@
+import { describe, expect, it } from 'vitest';
+import { createEditor, marksOfTrack, type MarkWrite } from './editor-store';
+
+function loadedEditor(options: Parameters<typeof createEditor>[0] = {}, permissions = { canMark: true, canCalibrate: true }) {
+  const editor = createEditor(options);
+  const writes: MarkWrite[] = [];
+  editor.onMarkWrite((w) => writes.push(w));
+  editor.load({
+    frames: Array.from({ length: 30 }, (_, i) => ({ frameNumber: i, tS: i / 240 })),
+    tracks: [
+      { id: 'ball', kind: 'projectile', label: 'Projectile' },
+      { id: 'muzzle', kind: 'muzzle', label: 'Muzzle' },
+    ],
+    marks: [],
+    calibration: null,
+    permissions,
+  });
+  return { editor, writes };
+}
+
+describe('editor store', () => {
+  it('starts on the first frame with the projectile track active', () => {
+    const { editor } = loadedEditor();
+    expect(editor.getState().frameNumber).toBe(0);
+    expect(editor.getState().activeTrackId).toBe('ball');
+  });
+
+  it('a click with the place tool puts a mark and moves to the next frame', () => {
+    const { editor, writes } = loadedEditor();
+    editor.toolEvent({ type: 'pointer-down', point: { u: 100, v: 50 }, button: 0 });
+    const s = editor.getState();
+    expect(s.marksByTrack.ball[0]).toMatchObject({ uPx: 100, vPx: 50, snapped: false });
+    expect(s.frameNumber).toBe(1);
+    expect(writes).toEqual([{ trackId: 'ball', frameNumber: 0, mark: s.marksByTrack.ball[0], previous: null }]);
+  });
+
+  it('uses the snapper and remembers that the mark was snapped', () => {
+    const { editor } = loadedEditor({ snap: (_f, p) => ({ u: p.u + 0.4, v: p.v - 0.3 }) });
+    editor.placeMark({ u: 10, v: 10 });
+    expect(editor.getState().marksByTrack.ball[0]).toMatchObject({ uPx: 10.4, vPx: 9.7, snapped: true });
+  });
+
+  it('keeps the click as placed when the snapper finds nothing', () => {
+    const { editor } = loadedEditor({ snap: () => null });
+    editor.placeMark({ u: 10, v: 10 });
+    expect(editor.getState().marksByTrack.ball[0]).toMatchObject({ uPx: 10, vPx: 10, snapped: false });
+  });
+
+  it('undo removes a placed mark, returns to its frame and is saved; redo puts it back', () => {
+    const { editor, writes } = loadedEditor();
+    editor.placeMark({ u: 1, v: 2 });
+    editor.step(1);
+    editor.placeMark({ u: 3, v: 4 });
+    editor.step(1);
+    expect(editor.getState().frameNumber).toBe(2);
+
+    editor.undo();
+    expect(editor.getState().marksByTrack.ball[1]).toBeUndefined();
+    expect(editor.getState().frameNumber).toBe(1);
+    expect(writes.at(-1)).toMatchObject({ trackId: 'ball', frameNumber: 1, mark: null });
+
+    editor.redo();
+    expect(editor.getState().marksByTrack.ball[1]).toMatchObject({ uPx: 3, vPx: 4 });
+    expect(writes.at(-1)?.mark).toMatchObject({ uPx: 3, vPx: 4 });
+    expect(writes).toHaveLength(4);
+  });
+
+  it('a new edit after an undo clears the redo stack', () => {
+    const { editor } = loadedEditor();
+    editor.placeMark({ u: 1, v: 2 });
+    editor.undo();
+    editor.placeMark({ u: 5, v: 5 });
+    editor.redo();
+    expect(editor.getState().marksByTrack.ball[0]).toMatchObject({ uPx: 5, vPx: 5 });
+    expect(editor.getState().history.redo).toHaveLength(0);
+  });
+
+  it('undo of a move restores the earlier position', () => {
+    const { editor } = loadedEditor();
+    editor.placeMark({ u: 1, v: 2 });
+    editor.moveMark('ball', 0, { u: 7, v: 8 });
+    expect(editor.getState().marksByTrack.ball[0]).toMatchObject({ uPx: 7, vPx: 8 });
+    editor.undo();
+    expect(editor.getState().marksByTrack.ball[0]).toMatchObject({ uPx: 1, vPx: 2 });
+  });
+
+  it('stepping clamps to the clip and Shift-size steps move by ten', () => {
+    const { editor } = loadedEditor();
+    editor.step(-1);
+    expect(editor.getState().frameNumber).toBe(0);
+    editor.step(10);
+    expect(editor.getState().frameNumber).toBe(10);
+    editor.step(100);
+    expect(editor.getState().frameNumber).toBe(29);
+  });
+
+  it('steps over gaps in the frame list by index, not by number', () => {
+    const editor = createEditor();
+    editor.load({
+      frames: [3, 4, 7, 9].map((n) => ({ frameNumber: n, tS: n / 100 })),
+      tracks: [{ id: 't', kind: 'projectile', label: 'P' }],
+      marks: [],
+      calibration: null,
+      permissions: { canMark: true, canCalibrate: false },
+    });
+    editor.step(1);
+    editor.step(1);
+    expect(editor.getState().frameNumber).toBe(7);
+  });
+
+  it('Home and End go to the first and last marked frame', () => {
+    const { editor } = loadedEditor();
+    editor.placeMark({ u: 1, v: 1 }, { frameNumber: 5 });
+    editor.placeMark({ u: 1, v: 1 }, { frameNumber: 12 });
+    editor.goToMarkedEnd('last');
+    expect(editor.getState().frameNumber).toBe(12);
+    editor.goToMarkedEnd('first');
+    expect(editor.getState().frameNumber).toBe(5);
+  });
+
+  it('skip drops the mark on this frame and advances', () => {
+    const { editor } = loadedEditor();
+    editor.placeMark({ u: 1, v: 1 });
+    editor.skipFrame();
+    const s = editor.getState();
+    expect(s.marksByTrack.ball[0]).toBeUndefined();
+    expect(s.skipped['ball@0']).toBe(true);
+    expect(s.frameNumber).toBe(1);
+  });
+
+  it('people who may not mark change nothing and get no marking tool', () => {
+    const { editor, writes } = loadedEditor({}, { canMark: false, canCalibrate: false });
+    expect(editor.getState().activeTool).toBe('hand');
+    editor.setTool('place');
+    editor.placeMark({ u: 1, v: 1 });
+    editor.toolEvent({ type: 'pointer-down', point: { u: 1, v: 1 }, button: 0 });
+    expect(marksOfTrack(editor.getState(), 'ball')).toHaveLength(0);
+    expect(writes).toHaveLength(0);
+  });
+
+  it('a tracker cannot pick calibration tools', () => {
+    const { editor } = loadedEditor({}, { canMark: true, canCalibrate: false });
+    editor.setTool('ruler');
+    expect(editor.getState().activeTool).toBe('place');
+  });
+
+  it('scale set through the ruler tool is undoable', () => {
+    const { editor } = loadedEditor();
+    editor.setTool('ruler');
+    editor.toolEvent({ type: 'pointer-down', point: { u: 10, v: 10 }, button: 0 });
+    editor.toolEvent({ type: 'pointer-down', point: { u: 210, v: 10 }, button: 0 });
+    expect(editor.getState().dialog).toBe('scale-length');
+    editor.toolEvent({ type: 'submit', values: { lengthM: 1, toleranceM: 0.001 } });
+    expect(editor.getState().calibrationDraft.scale).toEqual({ a: { u: 10, v: 10 }, b: { u: 210, v: 10 }, lengthM: 1, toleranceM: 0.001 });
+    expect(editor.getState().dialog).toBeNull();
+    editor.undo();
+    expect(editor.getState().calibrationDraft.scale).toBeNull();
+  });
+
+  it('a server correction is shown without entering history or the write channel', () => {
+    const { editor, writes } = loadedEditor();
+    editor.placeMark({ u: 1, v: 1 });
+    editor.applyServerMark('ball', 0, { trackId: 'ball', frameNumber: 0, uPx: 9, vPx: 9, snapped: true });
+    expect(editor.getState().marksByTrack.ball[0].uPx).toBe(9);
+    expect(writes).toHaveLength(1);
+    expect(editor.getState().history.undo).toHaveLength(1);
+  });
+
+  it('notifies subscribers on change and stops after unsubscribing', () => {
+    const { editor } = loadedEditor();
+    let calls = 0;
+    const off = editor.subscribe(() => calls++);
+    editor.step(1);
+    off();
+    editor.step(1);
+    expect(calls).toBe(1);
+  });
+});
