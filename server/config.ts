@@ -18,6 +18,10 @@ export interface Config {
   /** Start the job worker inside the server process. */
   inProcessWorker: boolean;
   jpegQuality: number;
+  /** PostgreSQL schema of the job queue (pg-boss); tests give each worker set its own. */
+  jobSchema: string;
+  /** A running extraction that has not reported for this long is presumed dead and retried. */
+  jobStaleSeconds: number;
   /** The built client (vite build output) to serve, if present. */
   clientDist: string;
 }
@@ -49,6 +53,8 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
     signInLimitPerWindow: int(env.SIGN_IN_LIMIT, 10),
     inProcessWorker: env.IN_PROCESS_WORKER !== 'false',
     jpegQuality: int(env.JPEG_QUALITY, 90),
+    jobSchema: env.JOB_SCHEMA || 'pgboss',
+    jobStaleSeconds: int(env.JOB_STALE_SECONDS, 30),
     clientDist: path.resolve(env.CLIENT_DIST ?? 'dist'),
   };
 }
