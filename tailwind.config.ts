@@ -16,6 +16,8 @@ export default {
         vacuum: '#7a6fa8',
         alert: { DEFAULT: '#b3261e', light: '#f7dcd9' },
         ok: { DEFAULT: '#2e7d32', light: '#dcefdc' },
+        // Hairlines between cards, rows and fields.
+        line: { DEFAULT: '#e2dccf', strong: '#cfc6b3' },
       },
       fontSize: {
         micro: ['0.75rem', { lineHeight: '1rem' }],

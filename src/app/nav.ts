@@ -1,0 +1,24 @@
+import { CAN, type Role } from '@shared/roles';
+
+/** One entry of the team navigation in the shell's side bar. */
+export interface NavEntry {
+  label: string;
+  /** Where it goes inside the current team. */
+  to: (teamId: string) => string;
+  /** Only these roles see the entry; everyone in the team when left out. */
+  roles?: readonly Role[];
+  /** Highlight only on an exact match (for the team home, which prefixes every team page). */
+  end?: boolean;
+}
+
+// Features append their entries here (one line each, in reading order of the
+// team's work: records → clips → marking → fits → presets → team admin).
+export const NAV_ENTRIES: NavEntry[] = [
+  { label: 'Team home', to: (teamId) => `/t/${teamId}`, end: true },
+  { label: 'Members', to: (teamId) => `/t/${teamId}/members` },
+  { label: 'Outbox', to: (teamId) => `/t/${teamId}/outbox`, roles: CAN.manageMembers },
+];
+
+export function navEntriesFor(role: Role): NavEntry[] {
+  return NAV_ENTRIES.filter((entry) => !entry.roles || entry.roles.includes(role));
+}

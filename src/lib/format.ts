@@ -1,0 +1,116 @@
+// Number formatting for measured and fitted values. Everything the UI prints
+// about a shot goes through here so units, digits and intervals look the same
+// on every page. Uses U+2212 minus and U+2013 en dash for ranges, the usual
+// typographic convention for numbers (SI Brochure, 9th ed., §5.4.2 for the
+// space between value and unit).
+
+const MINUS = '\u2212';
+const EN_DASH = '\u2013';
+const NBSP = '\u00a0';
+
+export interface NumberFormat {
+  /** Significant digits (default 4). Ignored when `decimals` is given. */
+  digits?: number;
+  /** Fixed number of decimals, e.g. 1 for angles in degrees. */
+  decimals?: number;
+}
+
+/** Rounds to significant digits or fixed decimals; never prints exponent notation for everyday magnitudes. */
+export function formatNumber(value: number | null | undefined, { digits = 4, decimals }: NumberFormat = {}): string {
+  if (value === null || value === undefined || Number.isNaN(value)) return '—';
+  if (!Number.isFinite(value)) return value > 0 ? '∞' : `${MINUS}∞`;
+  let text: string;
+  if (decimals !== undefined) {
+    text = value.toFixed(decimals);
+  } else if (value === 0) {
+    text = '0';
+  } else {
+    const magnitude = Math.floor(Math.log10(Math.abs(value)));
+    if (magnitude >= 9 || magnitude <= -6) {
+      text = value.toExponential(Math.max(0, digits - 1));
+    } else {
+      const places = Math.max(0, digits - 1 - magnitude);
+      text = value.toFixed(places);
+    }
+  }
+  // "-0.00" after rounding reads as a sign error; show plain zero.
+  if (/^-0(\.0+)?$/.test(text)) text = text.slice(1);
+  return text.replace('-', MINUS);
+}
+
+/** "23.41 m/s"; unit may be empty for dimensionless values such as a drag coefficient. */
+export function formatQuantity(value: number | null | undefined, unit = '', options?: NumberFormat): string {
+  const number = formatNumber(value, options);
+  if (!unit || number === '—') return number;
+  // Degrees and percent attach without a space (SI Brochure §5.4.3 makes the
+  // degree of plane angle the exception; percent is common practice).
+  const tight = unit === '°' || unit === '%';
+  return tight ? `${number}${unit}` : `${number}${NBSP}${unit}`;
+}
+
+export interface Interval {
+  low: number;
+  high: number;
+  /** e.g. 0.95 */
+  level: number;
+}
+
+/**
+ * "23.41 m/s (95%: 23.10–23.72)": the interval gets the same decimals as the
+ * value so the two can be compared digit by digit.
+ */
+export function formatWithInterval(value: number, unit: string, interval: Interval | null | undefined, options: NumberFormat = {}): string {
+  const main = formatQuantity(value, unit, options);
+  if (!interval) return main;
+  const decimals = options.decimals ?? decimalsOf(formatNumber(value, options));
+  const low = formatNumber(interval.low, { decimals });
+  const high = formatNumber(interval.high, { decimals });
+  return `${main} (${formatPercent(interval.level)}: ${low}${EN_DASH}${high})`;
+}
+
+/** "23.41 ± 0.31 m/s" for a symmetric uncertainty. */
+export function formatPlusMinus(value: number, halfWidth: number, unit = '', options: NumberFormat = {}): string {
+  const decimals = options.decimals ?? decimalsOf(formatNumber(value, options));
+  const body = `${formatNumber(value, { decimals })} ± ${formatNumber(halfWidth, { decimals })}`;
+  if (!unit) return body;
+  return unit === '°' ? `(${body})°` : `${body}${NBSP}${unit}`;
+}
+
+/** 0.95 → "95%", 0.999 → "99.9%". */
+export function formatPercent(fraction: number, maxDecimals = 1): string {
+  // Number() drops the trailing zeros toFixed leaves behind.
+  const text = String(Number((fraction * 100).toFixed(maxDecimals)));
+  return `${text.replace('-', MINUS)}%`;
+}
+
+function decimalsOf(text: string): number {
+  const dot = text.indexOf('.');
+  return dot < 0 || text.includes('e') ? 0 : text.length - dot - 1;
+}
+
+/** A date and time in the reader's locale, short and unambiguous: "2 Dec 2026, 14:05". */
+export function formatDateTime(iso: string | Date | null | undefined): string {
+  if (!iso) return '—';
+  const date = typeof iso === 'string' ? new Date(iso) : iso;
+  if (Number.isNaN(date.getTime())) return '—';
+  return new Intl.DateTimeFormat(undefined, { day: 'numeric', month: 'short', year: 'numeric', hour: '2-digit', minute: '2-digit' }).format(date);
+}
+
+export function formatDate(iso: string | Date | null | undefined): string {
+  if (!iso) return '—';
+  const date = typeof iso === 'string' ? new Date(iso) : iso;
+  if (Number.isNaN(date.getTime())) return '—';
+  return new Intl.DateTimeFormat(undefined, { day: 'numeric', month: 'short', year: 'numeric' }).format(date);
+}
+
+/** Bytes for upload sizes: "48.2 MB" (decimal prefixes, as disks and browsers show them). */
+export function formatBytes(bytes: number): string {
+  const units = ['B', 'kB', 'MB', 'GB', 'TB'];
+  let value = bytes;
+  let i = 0;
+  while (Math.abs(value) >= 1000 && i < units.length - 1) {
+    value /= 1000;
+    i++;
+  }
+  return formatQuantity(value, units[i], i === 0 ? { decimals: 0 } : { digits: 3 });
+}
