@@ -3,10 +3,20 @@ import type { RouteTable } from '../http/route-table';
 import { authRoutes } from './auth';
 import { healthRoutes } from './health';
 import { openApiRoutes } from './openapi';
+import { teamRoutes } from './teams';
+import { memberRoutes } from './members';
+import { invitationRoutes } from './invitations';
+import { outboxRoutes } from './outbox';
+import { auditRoutes } from './audit';
 
 /** Each resource declares its routes in its own file; this is the order they are mounted. */
 export function registerAllRoutes(api: RouteTable, deps: AppDeps): void {
   healthRoutes(api.section('health'), deps);
   openApiRoutes(api.section('meta'), deps);
   authRoutes(api.section('auth'), deps);
+  teamRoutes(api.section('teams'), deps);
+  memberRoutes(api.section('members'), deps);
+  invitationRoutes(api.section('invitations'), deps);
+  outboxRoutes(api.section('mail'), deps);
+  auditRoutes(api.section('audit'), deps);
 }

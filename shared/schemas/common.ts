@@ -27,3 +27,10 @@ export const Problem = z.object({
   errors: z.array(z.object({ path: z.string(), message: z.string() })).optional(),
 });
 export type Problem = z.infer<typeof Problem>;
+
+/** ?page&pageSize for long lists; query strings arrive as text, hence coerce. */
+export const PageQuery = z.object({
+  page: z.coerce.number().int().min(1, 'must be 1 or more').default(1),
+  pageSize: z.coerce.number().int().min(1, 'must be 1 or more').max(100, 'must be at most 100').default(20),
+});
+export type PageQuery = z.infer<typeof PageQuery>;
