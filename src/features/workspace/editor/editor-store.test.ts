@@ -37,7 +37,7 @@ describe('editor store', () => {
   it('uses the snapper and remembers that the mark was snapped', () => {
     const { editor } = loadedEditor({ snap: (_f, p) => ({ u: p.u + 0.4, v: p.v - 0.3 }) });
     editor.placeMark({ u: 10, v: 10 });
-    expect(editor.getState().marksByTrack.ball[0]).toMatchObject({ uPx: 10.4, vPx: 9.7, snapped: true });
+    expect(editor.getState().marksByTrack.ball[0]).toMatchObject({ uPx: 10.4, vPx: 9.7, placedUPx: 10, placedVPx: 10, snapped: true });
   });
 
   it('keeps the click as placed when the snapper finds nothing', () => {
@@ -151,7 +151,7 @@ describe('editor store', () => {
     editor.toolEvent({ type: 'pointer-down', point: { u: 210, v: 10 }, button: 0 });
     expect(editor.getState().dialog).toBe('scale-length');
     editor.toolEvent({ type: 'submit', values: { lengthM: 1, toleranceM: 0.001 } });
-    expect(editor.getState().calibrationDraft.scale).toEqual({ a: { u: 10, v: 10 }, b: { u: 210, v: 10 }, lengthM: 1, toleranceM: 0.001 });
+    expect(editor.getState().calibrationDraft.scale).toEqual({ p1: { u: 10, v: 10 }, p2: { u: 210, v: 10 }, lengthM: 1, lengthTolM: 0.001 });
     expect(editor.getState().dialog).toBeNull();
     editor.undo();
     expect(editor.getState().calibrationDraft.scale).toBeNull();
@@ -160,7 +160,7 @@ describe('editor store', () => {
   it('a server correction is shown without entering history or the write channel', () => {
     const { editor, writes } = loadedEditor();
     editor.placeMark({ u: 1, v: 1 });
-    editor.applyServerMark('ball', 0, { trackId: 'ball', frameNumber: 0, uPx: 9, vPx: 9, snapped: true });
+    editor.applyServerMark('ball', 0, { trackId: 'ball', frameNumber: 0, uPx: 9, vPx: 9, placedUPx: 8, placedVPx: 8, snapped: true });
     expect(editor.getState().marksByTrack.ball[0].uPx).toBe(9);
     expect(writes).toHaveLength(1);
     expect(editor.getState().history.undo).toHaveLength(1);

@@ -300,7 +300,7 @@ export function createEditor(options: EditorOptions = {}) {
       if (!trackId || !state.permissions.canMark) return;
       const snappedTo = options.snap?.(frameNumber, point) ?? null;
       const p = snappedTo ?? point;
-      const after: EditorMark = { trackId, frameNumber, uPx: p.u, vPx: p.v, snapped: snappedTo !== null };
+      const after: EditorMark = { trackId, frameNumber, uPx: p.u, vPx: p.v, placedUPx: point.u, placedVPx: point.v, snapped: snappedTo !== null };
       const before = markAt(state, trackId, frameNumber);
       const skipped = { ...state.skipped };
       delete skipped[markKey(trackId, frameNumber)];
@@ -311,7 +311,7 @@ export function createEditor(options: EditorOptions = {}) {
     moveMark(trackId: string, frameNumber: number, to: Point) {
       const before = markAt(state, trackId, frameNumber);
       if (!before || !state.permissions.canMark) return;
-      commit({ kind: 'mark', trackId, frameNumber, before, after: { ...before, uPx: to.u, vPx: to.v, snapped: false } });
+      commit({ kind: 'mark', trackId, frameNumber, before, after: { ...before, uPx: to.u, vPx: to.v, placedUPx: to.u, placedVPx: to.v, snapped: false } });
     },
 
     deleteMark(trackId: string, frameNumber: number) {

@@ -20,6 +20,9 @@ export interface EditorMark {
   frameNumber: number;
   uPx: number;
   vPx: number;
+  /** Where the person clicked or dragged to, before any snap. */
+  placedUPx: number;
+  placedVPx: number;
   /** True when the sub-pixel snap moved the click onto the projectile's centroid. */
   snapped: boolean;
 }
@@ -31,16 +34,17 @@ export interface FrameInfo {
 
 /** Scale reference: two end points of something of known length. */
 export interface ScaleDraft {
-  a: Point;
-  b: Point;
+  p1: Point;
+  p2: Point;
   lengthM: number;
-  toleranceM: number;
+  /** Stated tolerance ±a of the length. */
+  lengthTolM: number;
 }
 
 /** Camera roll either from two points on a level line or as a stated angle. */
-export type LevelDraft = { kind: 'line'; a: Point; b: Point } | { kind: 'angle'; angleDeg: number };
+export type LevelDraft = { kind: 'line'; p1: Point; p2: Point } | { kind: 'angle'; rollDeg: number };
 
-/** Four image points of a known rectangle, in order around it, starting at the corner nearest the origin. */
+/** Four image points of a known rectangle in the flight plane: top-left, top-right, bottom-right, bottom-left as it stands. */
 export interface PlaneDraft {
   corners: [Point, Point, Point, Point];
   widthM: number;
@@ -52,9 +56,11 @@ export interface CalibrationDraft {
   origin: Point | null;
   level: LevelDraft | null;
   plane: PlaneDraft | null;
+  /** Which way the shot flies on screen. */
+  downrange: 'right' | 'left';
 }
 
-export const EMPTY_CALIBRATION: CalibrationDraft = { scale: null, origin: null, level: null, plane: null };
+export const EMPTY_CALIBRATION: CalibrationDraft = { scale: null, origin: null, level: null, plane: null, downrange: 'right' };
 
 export type ToolId = 'place' | 'ruler' | 'origin-pin' | 'horizon' | 'plane-fix' | 'hand';
 

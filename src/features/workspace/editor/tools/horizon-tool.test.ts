@@ -20,7 +20,7 @@ describe('horizon tool', () => {
       { type: 'pointer-down', point: { u: 0, v: 100 }, button: 0 },
       { type: 'pointer-down', point: { u: 400, v: 104 }, button: 0 },
     ]);
-    expect(r.effects).toEqual([{ type: 'set-level', level: { kind: 'line', a: { u: 0, v: 100 }, b: { u: 400, v: 104 } } }]);
+    expect(r.effects).toEqual([{ type: 'set-level', level: { kind: 'line', p1: { u: 0, v: 100 }, p2: { u: 400, v: 104 } } }]);
     expect(r.state.phase).toBe('idle');
   });
 
@@ -28,7 +28,7 @@ describe('horizon tool', () => {
     const r = run([{ type: 'key', key: 'a' }, { type: 'submit', values: { angleDeg: -1.5 } }]);
     expect(r.effects).toEqual([
       { type: 'open-dialog', dialog: 'level-angle' },
-      { type: 'set-level', level: { kind: 'angle', angleDeg: -1.5 } },
+      { type: 'set-level', level: { kind: 'angle', rollDeg: -1.5 } },
       { type: 'close-dialog' },
     ]);
   });

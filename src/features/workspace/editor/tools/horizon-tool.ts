@@ -26,7 +26,7 @@ export const horizonTool: Tool<HorizonState> = {
         if (event.type === 'pointer-move') return { state: { ...state, hover: event.point }, effects: [] };
         if (event.type === 'pointer-down' && event.button === 0) {
           if (distancePx(state.a, event.point) < MIN_LINE_PX) return unchanged(state);
-          return { state: { phase: 'idle' }, effects: [{ type: 'set-level', level: { kind: 'line', a: state.a, b: event.point } }] };
+          return { state: { phase: 'idle' }, effects: [{ type: 'set-level', level: { kind: 'line', p1: state.a, p2: event.point } }] };
         }
         if (event.type === 'key' && event.key === 'Escape') return { state: { phase: 'idle' }, effects: [] };
         return unchanged(state);
@@ -34,7 +34,7 @@ export const horizonTool: Tool<HorizonState> = {
         if (event.type !== 'submit') return unchanged(state);
         const { angleDeg } = event.values;
         if (!Number.isFinite(angleDeg) || Math.abs(angleDeg) >= 45) return unchanged(state);
-        return { state: { phase: 'idle' }, effects: [{ type: 'set-level', level: { kind: 'angle', angleDeg } }, { type: 'close-dialog' }] };
+        return { state: { phase: 'idle' }, effects: [{ type: 'set-level', level: { kind: 'angle', rollDeg: angleDeg } }, { type: 'close-dialog' }] };
       }
     }
   },

@@ -9,7 +9,7 @@ const ctx = (over: Partial<ToolContext> = {}): ToolContext => ({
   grabRadiusPx: 8,
   ...over,
 });
-const mark = { trackId: 't', frameNumber: 4, uPx: 100, vPx: 100, snapped: true };
+const mark = { trackId: 't', frameNumber: 4, uPx: 100, vPx: 100, placedUPx: 101, placedVPx: 99, snapped: true };
 
 describe('place tool', () => {
   it('a click on empty image places a mark and steps one frame on', () => {

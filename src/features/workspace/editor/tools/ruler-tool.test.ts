@@ -24,7 +24,7 @@ describe('ruler tool', () => {
     ]);
     expect(r.effects).toEqual([
       { type: 'open-dialog', dialog: 'scale-length' },
-      { type: 'set-scale', scale: { a: { u: 0, v: 0 }, b: { u: 300, v: 40 }, lengthM: 2, toleranceM: 0.002 } },
+      { type: 'set-scale', scale: { p1: { u: 0, v: 0 }, p2: { u: 300, v: 40 }, lengthM: 2, lengthTolM: 0.002 } },
       { type: 'close-dialog' },
     ]);
     expect(r.state.phase).toBe('idle');

@@ -33,7 +33,7 @@ export const rulerTool: Tool<RulerState> = {
         if (!(lengthM > 0) || !(toleranceM >= 0)) return unchanged(state);
         return {
           state: { phase: 'idle' },
-          effects: [{ type: 'set-scale', scale: { a: state.a, b: state.b, lengthM, toleranceM } }, { type: 'close-dialog' }],
+          effects: [{ type: 'set-scale', scale: { p1: state.a, p2: state.b, lengthM, lengthTolM: toleranceM } }, { type: 'close-dialog' }],
         };
       }
     }
