@@ -8,6 +8,10 @@ import { memberRoutes } from './members';
 import { invitationRoutes } from './invitations';
 import { outboxRoutes } from './outbox';
 import { auditRoutes } from './audit';
+import { seriesRoutes } from './series';
+import { shotRoutes } from './shots';
+import { launcherRoutes } from './launchers';
+import { projectileRoutes } from './projectiles';
 
 /** Each resource declares its routes in its own file; this is the order they are mounted. */
 export function registerAllRoutes(api: RouteTable, deps: AppDeps): void {
@@ -19,4 +23,8 @@ export function registerAllRoutes(api: RouteTable, deps: AppDeps): void {
   invitationRoutes(api.section('invitations'), deps);
   outboxRoutes(api.section('mail'), deps);
   auditRoutes(api.section('audit'), deps);
+  seriesRoutes(api.section('series'), deps);
+  shotRoutes(api.section('shots'), deps);
+  launcherRoutes(api.section('launchers'), deps);
+  projectileRoutes(api.section('projectiles'), deps);
 }

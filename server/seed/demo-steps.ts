@@ -1,4 +1,5 @@
+import { demoRecordsStep } from './demo-records';
 import type { SeedStep } from './seed-demo';
 
 /** Demo data beyond the team and its people, in the order it is seeded. Areas append their steps here. */
-export const DEMO_STEPS: SeedStep[] = [];
+export const DEMO_STEPS: SeedStep[] = [demoRecordsStep];
