@@ -1,4 +1,5 @@
 import type { AppDeps } from './app-deps';
+import { startJobQueue } from './jobs/queue';
 
 export interface Background {
   /** Extra dependencies the background services give route handlers (e.g. the job queue). */
@@ -6,7 +7,15 @@ export interface Background {
   stop: () => Promise<void>;
 }
 
-/** Starts long-running services beside the HTTP server (the job worker, when it runs in-process). */
-export async function startBackground(_deps: AppDeps): Promise<Background> {
-  return { deps: {}, stop: async () => {} };
+/**
+ * Starts long-running services beside the HTTP server: the job queue always
+ * (handlers enqueue), and its worker when it runs in-process
+ * (IN_PROCESS_WORKER=false leaves the jobs to `npm run worker`).
+ */
+export async function startBackground(deps: AppDeps): Promise<Background> {
+  const queue = await startJobQueue(deps.config, deps.db);
+  if (deps.config.inProcessWorker) {
+    await queue.startWorker({ db: deps.db, storage: deps.storage, config: deps.config, log: (line) => process.stdout.write(`${line}\n`) });
+  }
+  return { deps: { jobs: queue.jobs }, stop: () => queue.stop() };
 }

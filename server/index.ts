@@ -7,6 +7,7 @@ import { createApp } from './app';
 import { createMailer } from './mail/mailer';
 import { startFakeSmtp } from './mail/fake-smtp';
 import { startBackground, type Background } from './background';
+import { localDiskStorage } from './storage/local-disk';
 
 const config = loadConfig();
 await ensureDatabase(config.databaseUrl);
@@ -15,7 +16,7 @@ await applyMigrations(database.db);
 
 const fakeSmtp = config.smtpUrl ? null : await startFakeSmtp(database.db);
 const mailer = createMailer(config.smtpUrl ?? fakeSmtp!.url, config.mailFrom);
-const deps = { config, db: database.db, pool: database.pool, mailer };
+const deps = { config, db: database.db, pool: database.pool, mailer, storage: localDiskStorage(config.storageDir) };
 const background: Background = await startBackground(deps);
 const app = createApp({ ...deps, ...background.deps });
 

@@ -5,25 +5,47 @@ import { loadConfig, type Config } from '../../server/config';
 import { connect } from '../../server/db/client';
 import { startFakeSmtp } from '../../server/mail/fake-smtp';
 import { createMailer } from '../../server/mail/mailer';
+import { startJobQueue, type JobQueue } from '../../server/jobs/queue';
+import { localDiskStorage } from '../../server/storage/local-disk';
 
 export interface TestApp {
   app: ReturnType<typeof createApp>;
   deps: AppDeps;
+  /** Present when the test asked for the job queue. */
+  queue?: JobQueue;
   close: () => Promise<void>;
 }
 
+export interface TestAppOptions {
+  /**
+   * Start the real job queue (pg-boss on the test database): 'worker' also runs
+   * the handlers in this process, 'send-only' leaves them to a separate worker.
+   * Give the test file its own config.jobSchema so its jobs stay its own.
+   */
+  jobs?: 'worker' | 'send-only';
+}
+
 /** The real app on the real test database, with the local SMTP fake; one per test file. */
-export async function createTestApp(overrides: Partial<Config> = {}, extraDeps: Partial<AppDeps> = {}): Promise<TestApp> {
+export async function createTestApp(overrides: Partial<Config> = {}, extraDeps: Partial<AppDeps> = {}, options: TestAppOptions = {}): Promise<TestApp> {
   const config = { ...loadConfig(), ...overrides };
   const database = connect(config.databaseUrl, 4);
   const smtp = await startFakeSmtp(database.db);
   const mailer = createMailer(smtp.url, config.mailFrom);
-  const deps: AppDeps = { config, db: database.db, pool: database.pool, mailer, ...extraDeps } as AppDeps;
+  const storage = localDiskStorage(config.storageDir);
+  const deps: AppDeps = { config, db: database.db, pool: database.pool, mailer, storage, ...extraDeps } as AppDeps;
+  let queue: JobQueue | undefined;
+  if (options.jobs) {
+    queue = await startJobQueue(config, database.db, { supervise: options.jobs === 'worker' });
+    deps.jobs = queue.jobs;
+    if (options.jobs === 'worker') await queue.startWorker({ db: database.db, storage: deps.storage, config });
+  }
   const app = createApp(deps);
   return {
     app,
     deps,
+    queue,
     close: async () => {
+      await queue?.stop();
       mailer.close();
       await smtp.close();
       await database.close();

@@ -1,0 +1,221 @@
+// The frame-extraction job. Idempotent and safe to retry: each run extracts
+// into a fresh temp folder, moves the frames to a new versioned storage prefix,
+// and swaps the clip's frame rows to it in one transaction; older versions are
+// deleted afterwards. A run that no longer owns the clip (cancelled, deleted,
+// or superseded by a newer job) stops and leaves the current frames alone.
+import { randomBytes, randomUUID } from 'node:crypto';
+import { mkdir, readdir, rm } from 'node:fs/promises';
+import path from 'node:path';
+import { and, eq, inArray } from 'drizzle-orm';
+import type { Config } from '../config';
+import type { Db } from '../db/client';
+import { clipFrames, clips } from '../db/schema/clips';
+import { CancelledError, MediaError, extractFrames, frameTimestamps, probe, thumbnailStrip } from '../media/ffmpeg';
+import { analyseTimeBase, rateWarning } from '../media/time-base';
+import { clipPrefix, type Storage } from '../storage/storage';
+
+export interface ExtractFramesJob {
+  clipId: string;
+}
+
+export interface ExtractionDeps {
+  db: Db;
+  storage: Storage;
+  config: Config;
+  log?: (line: string) => void;
+}
+
+export interface ExtractionRun {
+  jobId: string;
+  clipId: string;
+  /** pg-boss attempt bookkeeping; a run on its last attempt marks the clip failed instead of queued. */
+  retryCount?: number;
+  retryLimit?: number;
+}
+
+export const THUMBNAIL_COUNT = 12;
+export const THUMBNAIL_WIDTH_PX = 160;
+const PROGRESS_EVERY_MS = 250;
+
+class NotOwner extends Error {}
+
+/** Source frame numbers for the thumbnail strip: evenly spread over the range, ends included. */
+export function thumbnailFrames(inFrame: number, outFrame: number, count = THUMBNAIL_COUNT): number[] {
+  const span = outFrame - inFrame;
+  if (span + 1 <= count) return Array.from({ length: span + 1 }, (_, i) => inFrame + i);
+  return [...new Set(Array.from({ length: count }, (_, i) => inFrame + Math.round((span * i) / (count - 1))))];
+}
+
+export async function runFrameExtraction(deps: ExtractionDeps, run: ExtractionRun): Promise<void> {
+  const { db, storage, config } = deps;
+  const owned = and(eq(clips.id, run.clipId), eq(clips.jobId, run.jobId));
+  const [clip] = await db
+    .update(clips)
+    .set({ status: 'extracting', progress: 0, error: null, heartbeatAt: new Date(), updatedAt: new Date() })
+    .where(and(owned, inArray(clips.status, ['queued', 'extracting'])))
+    .returning();
+  if (!clip) return; // deleted, cancelled or superseded: nothing to do
+
+  const abort = new AbortController();
+  const stillOwner = async () => {
+    const [row] = await db.select({ status: clips.status }).from(clips).where(owned);
+    if (!row || row.status !== 'extracting') abort.abort();
+    return !abort.signal.aborted;
+  };
+  const beatMs = Math.max(500, Math.min(2000, (config.jobStaleSeconds * 1000) / 3));
+  const heartbeat = setInterval(() => {
+    void db
+      .update(clips)
+      .set({ heartbeatAt: new Date() })
+      .where(and(owned, eq(clips.status, 'extracting')))
+      .returning({ id: clips.id })
+      .then((rows) => rows.length === 0 && abort.abort())
+      .catch(() => {});
+  }, beatMs);
+
+  const workRoot = path.join(storage.tempDir, 'extract');
+  const workDir = path.join(workRoot, `${clip.id}-${randomBytes(4).toString('hex')}`);
+  const framesDir = path.join(workDir, 'frames');
+  const thumbsDir = path.join(workDir, 'thumbs');
+  const total = clip.outFrame - clip.inFrame + 1;
+  let newPrefix: string | null = null;
+  try {
+    // Leftovers of an earlier, killed attempt on this clip.
+    await mkdir(workRoot, { recursive: true });
+    for (const name of await readdir(workRoot)) {
+      if (name.startsWith(`${clip.id}-`)) await rm(path.join(workRoot, name), { recursive: true, force: true });
+    }
+    await mkdir(framesDir, { recursive: true });
+    await mkdir(thumbsDir, { recursive: true });
+
+    const input = await storage.localPath(clip.storageKey);
+    const facts = await probe(input);
+    const pts = await frameTimestamps(input, abort.signal);
+    const timeBase = analyseTimeBase({ ptsS: pts, containerFps: facts.containerFps, baseFps: facts.baseFps, captureFps: clip.captureFps });
+    if (!(await stillOwner())) throw new CancelledError();
+
+    let lastWrite = 0;
+    await extractFrames({
+      input,
+      outDir: framesDir,
+      inFrame: clip.inFrame,
+      outFrame: clip.outFrame,
+      jpegQuality: config.jpegQuality,
+      signal: abort.signal,
+      onProgress: (done) => {
+        const now = Date.now();
+        if (now - lastWrite < PROGRESS_EVERY_MS) return;
+        lastWrite = now;
+        void db
+          .update(clips)
+          .set({ progress: Math.min(0.95, (0.95 * done) / total), heartbeatAt: new Date() })
+          .where(and(owned, eq(clips.status, 'extracting')))
+          .returning({ id: clips.id })
+          .then((rows) => rows.length === 0 && abort.abort())
+          .catch(() => {});
+      },
+    });
+    if (!(await stillOwner())) throw new CancelledError();
+    const written = (await readdir(framesDir)).filter((n) => /^\d{6,}\.jpg$/.test(n)).sort();
+    if (written.length === 0) throw new MediaError('ffmpeg decoded no frames in the chosen range');
+    const frameNumbers = written.map((n) => Number(n.slice(0, -4)));
+    const thumbs = thumbnailFrames(frameNumbers[0], frameNumbers[frameNumbers.length - 1]);
+    const thumbCount = await thumbnailStrip({
+      input, outDir: thumbsDir, frameNumbers: thumbs, widthPx: THUMBNAIL_WIDTH_PX, jpegQuality: Math.min(config.jpegQuality, 80), signal: abort.signal,
+    });
+
+    const version = `v-${Date.now().toString(36)}-${randomBytes(3).toString('hex')}`;
+    newPrefix = `${clipPrefix(clip.teamId, clip.id)}${version}/`;
+    const rows: (typeof clipFrames.$inferInsert)[] = [];
+    for (const name of written) {
+      const frameNumber = Number(name.slice(0, -4));
+      const stored = await storage.putFile(`${newPrefix}frames/${name}`, path.join(framesDir, name));
+      const time = timeBase.frames[frameNumber];
+      rows.push({
+        clipId: clip.id,
+        frameNumber,
+        tS: time?.tS ?? frameNumber / clip.captureFps,
+        ptsS: time?.ptsS ?? null,
+        flag: time?.flag ?? null,
+        storageKey: stored.key,
+        sizeBytes: stored.sizeBytes,
+      });
+    }
+    const thumbFiles = (await readdir(thumbsDir)).filter((n) => n.endsWith('.jpg')).sort();
+    for (const name of thumbFiles) await storage.putFile(`${newPrefix}thumbs/${name}`, path.join(thumbsDir, name));
+
+    const warnings = timeBase.warnings;
+    if (!warnings.some((w) => w.code === 'rate-differs')) {
+      const w = rateWarning(facts.containerFps, clip.captureFps);
+      if (w && !timeBase.variableFrameRate) warnings.unshift(w);
+    }
+    await db.transaction(async (tx) => {
+      const [current] = await tx.select({ status: clips.status }).from(clips).where(owned).for('update');
+      if (!current || current.status !== 'extracting') throw new NotOwner();
+      await tx.delete(clipFrames).where(eq(clipFrames.clipId, clip.id));
+      for (let i = 0; i < rows.length; i += 2000) await tx.insert(clipFrames).values(rows.slice(i, i + 2000));
+      await tx
+        .update(clips)
+        .set({
+          status: 'ready',
+          progress: 1,
+          error: null,
+          extractedCount: rows.length,
+          thumbnailCount: Math.min(thumbCount, thumbFiles.length),
+          framesPrefix: newPrefix,
+          variableFrameRate: timeBase.variableFrameRate,
+          timeBaseWarnings: warnings,
+          heartbeatAt: null,
+          updatedAt: new Date(),
+        })
+        .where(owned);
+    });
+    const keep = newPrefix;
+    newPrefix = null; // committed: it is the clip's frame set now
+    await deleteOtherVersions(storage, clip.teamId, clip.id, keep);
+    deps.log?.(`[jobs] clip ${clip.id}: ${rows.length} frames extracted`);
+  } catch (err) {
+    if (newPrefix) await storage.deletePrefix(newPrefix).catch(() => {});
+    if (err instanceof CancelledError || err instanceof NotOwner) return;
+    if (err instanceof MediaError) {
+      // The file itself is the problem: retrying cannot help.
+      await markFailed(db, run, `Could not extract frames: ${err.message}`);
+      return;
+    }
+    const lastAttempt = (run.retryCount ?? 0) >= (run.retryLimit ?? 0);
+    if (lastAttempt) {
+      await markFailed(db, run, `Extraction failed: ${(err as Error).message}`);
+      return;
+    }
+    await db
+      .update(clips)
+      .set({ status: 'queued', error: `Attempt ${(run.retryCount ?? 0) + 1} failed (${(err as Error).message}); retrying.`, heartbeatAt: null, updatedAt: new Date() })
+      .where(and(owned, eq(clips.status, 'extracting')));
+    throw err;
+  } finally {
+    clearInterval(heartbeat);
+    await rm(workDir, { recursive: true, force: true }).catch(() => {});
+  }
+}
+
+async function markFailed(db: Db, run: ExtractionRun, error: string) {
+  await db
+    .update(clips)
+    .set({ status: 'failed', error, heartbeatAt: null, updatedAt: new Date() })
+    .where(and(eq(clips.id, run.clipId), eq(clips.jobId, run.jobId), inArray(clips.status, ['queued', 'extracting'])));
+}
+
+/** Removes frame sets of earlier extractions (and of runs killed before they committed). */
+export async function deleteOtherVersions(storage: Storage, teamId: string, clipId: string, keepPrefix: string | null): Promise<void> {
+  const base = clipPrefix(teamId, clipId);
+  const versions = new Set<string>();
+  for (const key of await storage.list(`${base}v-`)) versions.add(key.slice(0, key.indexOf('/', base.length) + 1));
+  for (const prefix of versions) if (prefix !== keepPrefix) await storage.deletePrefix(prefix);
+}
+
+/** Runs an extraction in this process right away (the demo seed; no queue). */
+export async function extractNow(deps: ExtractionDeps, clipId: string): Promise<void> {
+  const jobId = randomUUID();
+  await deps.db.update(clips).set({ jobId, status: 'queued', progress: 0 }).where(eq(clips.id, clipId));
+  await runFrameExtraction(deps, { jobId, clipId });
+}
