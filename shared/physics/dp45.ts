@@ -9,7 +9,12 @@
 // derivatives, whereas a fixed sequence makes the output a smooth function of
 // the parameters.
 
-export type Derivative = (t: number, y: Float64Array, dydt: Float64Array) => void;
+/**
+ * Right-hand side. constants is passed through unchanged: letting one shared
+ * function read its constants (rather than a fresh closure per model) keeps
+ * the call site monomorphic, which matters for speed inside fits.
+ */
+export type Derivative = (t: number, y: Float64Array, dydt: Float64Array, constants: Float64Array) => void;
 
 export interface Dp45Options {
   /** Relative tolerance per component. */
@@ -53,6 +58,7 @@ export interface Dp45Result {
 }
 
 // Dormand & Prince (1980) coefficients, J. Comput. Appl. Math. 6, 19-26.
+const NO_CONSTANTS = new Float64Array(0);
 const C2 = 1 / 5, C3 = 3 / 10, C4 = 4 / 5, C5 = 8 / 9;
 const A21 = 1 / 5;
 const A31 = 3 / 40, A32 = 9 / 40;
@@ -105,6 +111,7 @@ export function integrateDp45(
   sampler?: Dp45Sampler,
   event?: Dp45Event,
   workspace?: Dp45Workspace,
+  constants: Float64Array = NO_CONSTANTS,
 ): Dp45Result {
   const dim = y0.length;
   const ws = workspace && workspace.dim === dim ? workspace : new Dp45Workspace(dim);
@@ -118,10 +125,10 @@ export function integrateDp45(
 
   let t = t0;
   let evaluations = 0;
-  f(t, y, k1);
+  f(t, y, k1, constants);
   evaluations++;
 
-  let h = options.hInitial ?? initialStep(f, t, y, k1, tEnd - t0, rtol, atol, ws);
+  let h = options.hInitial ?? initialStep(f, t, y, k1, tEnd - t0, rtol, atol, ws, constants);
   if (replay === undefined) evaluations++;
   let accepted = 0;
   let rejected = 0;
@@ -147,21 +154,21 @@ export function integrateDp45(
     if (t + h >= tEnd || t + 1.01 * h >= tEnd) h = tEnd - t;
 
     for (let i = 0; i < dim; i++) yStage[i] = y[i] + h * A21 * k1[i];
-    f(t + C2 * h, yStage, k2);
+    f(t + C2 * h, yStage, k2, constants);
     for (let i = 0; i < dim; i++) yStage[i] = y[i] + h * (A31 * k1[i] + A32 * k2[i]);
-    f(t + C3 * h, yStage, k3);
+    f(t + C3 * h, yStage, k3, constants);
     for (let i = 0; i < dim; i++) yStage[i] = y[i] + h * (A41 * k1[i] + A42 * k2[i] + A43 * k3[i]);
-    f(t + C4 * h, yStage, k4);
+    f(t + C4 * h, yStage, k4, constants);
     for (let i = 0; i < dim; i++) yStage[i] = y[i] + h * (A51 * k1[i] + A52 * k2[i] + A53 * k3[i] + A54 * k4[i]);
-    f(t + C5 * h, yStage, k5);
+    f(t + C5 * h, yStage, k5, constants);
     for (let i = 0; i < dim; i++) {
       yStage[i] = y[i] + h * (A61 * k1[i] + A62 * k2[i] + A63 * k3[i] + A64 * k4[i] + A65 * k5[i]);
     }
-    f(t + h, yStage, k6);
+    f(t + h, yStage, k6, constants);
     for (let i = 0; i < dim; i++) {
       yNew[i] = y[i] + h * (A71 * k1[i] + A73 * k3[i] + A74 * k4[i] + A75 * k5[i] + A76 * k6[i]);
     }
-    f(t + h, yNew, k7);
+    f(t + h, yNew, k7, constants);
     evaluations += 6;
 
     let errNorm = 0;
@@ -273,7 +280,7 @@ function locateEvent(ws: Dp45Workspace, event: Dp45Event, t: number, h: number, 
 /** Starting step after Hairer, Norsett & Wanner (Solving ODEs I, II.4): balance the first two Taylor terms. */
 function initialStep(
   f: Derivative, t: number, y: Float64Array, f0: Float64Array, span: number,
-  rtol: number, atol: number, ws: Dp45Workspace,
+  rtol: number, atol: number, ws: Dp45Workspace, constants: Float64Array,
 ): number {
   const dim = ws.dim;
   let d0 = 0, d1 = 0;
@@ -287,7 +294,7 @@ function initialStep(
   let h0 = d0 < 1e-5 || d1 < 1e-5 ? 1e-6 : 0.01 * (d0 / d1);
   h0 = Math.min(h0, span);
   for (let i = 0; i < dim; i++) ws.yStage[i] = y[i] + h0 * f0[i];
-  f(t + h0, ws.yStage, ws.k2);
+  f(t + h0, ws.yStage, ws.k2, constants);
   let d2 = 0;
   for (let i = 0; i < dim; i++) {
     const sc = atol + rtol * Math.abs(y[i]);

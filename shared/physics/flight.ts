@@ -35,20 +35,26 @@ export function cdFromDragK(dragK_perM: number, diameterM: number, massKg: numbe
   return (2 * massKg * dragK_perM) / (airDensityKgM3 * areaM2);
 }
 
-/** Right-hand side of the flight ODE as a closure over the model constants. */
-export function flightDerivative(model: FlightModel): Derivative {
-  const k = model.dragK_perM;
-  const g = model.gravityMps2 ?? STANDARD_GRAVITY_MPS2;
-  const wx = model.windXMps ?? 0;
-  return (_t, s, d) => {
-    const rx = s[2] - wx;
-    const ry = s[3];
-    const kSpeed = k * Math.sqrt(rx * rx + ry * ry);
-    d[0] = s[2];
-    d[1] = s[3];
-    d[2] = -kSpeed * rx;
-    d[3] = -kSpeed * ry - g;
-  };
+/** Packs the model as [k, g, wind x] for flightRhs. */
+export function flightConstants(model: FlightModel): Float64Array {
+  return Float64Array.of(model.dragK_perM, model.gravityMps2 ?? STANDARD_GRAVITY_MPS2, model.windXMps ?? 0);
+}
+
+/** Right-hand side of the flight ODE; c = flightConstants(model). */
+export const flightRhs: Derivative = (_t, s, d, c) => {
+  const rx = s[2] - c[2];
+  const ry = s[3];
+  const kSpeed = c[0] * Math.sqrt(rx * rx + ry * ry);
+  d[0] = s[2];
+  d[1] = s[3];
+  d[2] = -kSpeed * rx;
+  d[3] = -kSpeed * ry - c[1];
+};
+
+/** The flight ODE as a self-contained derivative (constants bound), for one-off integrations. */
+export function flightDerivative(model: FlightModel): (t: number, y: Float64Array, dydt: Float64Array) => void {
+  const c = flightConstants(model);
+  return (t, s, d) => flightRhs(t, s, d, c);
 }
 
 export interface TrajectoryPoint {
@@ -85,7 +91,8 @@ export interface SimulatedTrajectory {
  * the dense output), and the samples are those up to that moment.
  */
 export function simulateTrajectory(model: FlightModel, launch: LaunchState, options: SimulateOptions = {}): SimulatedTrajectory {
-  const f = flightDerivative(model);
+  const f = flightRhs;
+  const c = flightConstants(model);
   const tol = { rtol: options.rtol ?? DEFAULT_TOLERANCES.rtol, atol: options.atol ?? DEFAULT_TOLERANCES.atol };
   const y0 = [launch.xM, launch.yM, launch.vxMps, launch.vyMps];
   const tMax = options.tMaxS ?? 600;
@@ -98,14 +105,14 @@ export function simulateTrajectory(model: FlightModel, launch: LaunchState, opti
   let tEndRun = times && times.length > 0 ? times[times.length - 1] : tMax;
   if (!times || times.length === 0) {
     // First find the end, then sample it evenly: two cheap runs keep the API simple.
-    const probe = integrateDp45(f, 0, y0, tMax, tol, undefined, event);
+    const probe = integrateDp45(f, 0, y0, tMax, tol, undefined, event, undefined, c);
     tEndRun = probe.tEnd;
     times = Array.from({ length: 201 }, (_, i) => (tEndRun * i) / 200);
   }
   const out = new Float64Array(times.length * 4);
   // With a stop height the second run repeats the probe's steps and stops at the same event.
   const tRun = event && !options.timesS ? tMax : Math.max(tEndRun, 1e-12);
-  const run = integrateDp45(f, 0, y0, tRun, tol, { times, out }, event);
+  const run = integrateDp45(f, 0, y0, tRun, tol, { times, out }, event, undefined, c);
   const points: TrajectoryPoint[] = [];
   for (let i = 0; i < run.samplesFilled; i++) {
     points.push({ tS: times[i], xM: out[4 * i], yM: out[4 * i + 1], vxMps: out[4 * i + 2], vyMps: out[4 * i + 3] });
@@ -132,8 +139,13 @@ export class PositionSampler {
   private readonly y0 = new Float64Array(4);
   private readonly t0: number;
   private readonly tEnd: number;
-  constructor(private readonly timesS: Float64Array, private readonly tol = DEFAULT_TOLERANCES) {
+  private readonly constants = new Float64Array(3);
+  private readonly options: Dp45Options;
+  private readonly sampler: { times: Float64Array; out: Float64Array };
+  constructor(private readonly timesS: Float64Array, tol = DEFAULT_TOLERANCES) {
     this.out = new Float64Array(timesS.length * 4);
+    this.options = { rtol: tol.rtol, atol: tol.atol, replaySteps: undefined, recordSteps: true };
+    this.sampler = { times: timesS, out: this.out };
     this.t0 = timesS[0];
     this.tEnd = timesS[timesS.length - 1];
   }
@@ -142,11 +154,12 @@ export class PositionSampler {
     model: FlightModel, launch: LaunchState, xOut: Float64Array, yOut: Float64Array, replaySteps?: ArrayLike<number>,
   ): number[] | undefined {
     this.y0[0] = launch.xM; this.y0[1] = launch.yM; this.y0[2] = launch.vxMps; this.y0[3] = launch.vyMps;
-    const run = integrateDp45(
-      flightDerivative(model), this.t0, this.y0, this.tEnd,
-      { ...this.tol, replaySteps, recordSteps: replaySteps === undefined },
-      { times: this.timesS, out: this.out }, undefined, this.ws,
-    );
+    this.constants[0] = model.dragK_perM;
+    this.constants[1] = model.gravityMps2 ?? STANDARD_GRAVITY_MPS2;
+    this.constants[2] = model.windXMps ?? 0;
+    this.options.replaySteps = replaySteps;
+    this.options.recordSteps = replaySteps === undefined;
+    const run = integrateDp45(flightRhs, this.t0, this.y0, this.tEnd, this.options, this.sampler, undefined, this.ws, this.constants);
     const n = this.timesS.length;
     for (let i = 0; i < n; i++) {
       xOut[i] = this.out[4 * i];
