@@ -33,7 +33,7 @@ describe('launcher models', () => {
       expect(s).toBeLessThanOrEqual(bound);
       previous = s;
     }
-    expect(previous / bound).toBeCloseTo(1, 6);
+    expect(previous / bound).toBeCloseTo(1, 5); // V0 = 1e3 m^3 is ~1e6 swept volumes
   });
 
   it('flags a small chamber whose gas falls below atmospheric before the muzzle', () => {
