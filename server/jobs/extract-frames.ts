@@ -11,7 +11,7 @@ import type { Config } from '../config';
 import type { Db } from '../db/client';
 import { clipFrames, clips } from '../db/schema/clips';
 import { CancelledError, MediaError, extractFrames, frameTimestamps, probe, thumbnailStrip } from '../media/ffmpeg';
-import { analyseTimeBase, rateWarning } from '../media/time-base';
+import { analyseTimeBase } from '../media/time-base';
 import { clipPrefix, type Storage } from '../storage/storage';
 
 export interface ExtractFramesJob {
@@ -145,10 +145,6 @@ export async function runFrameExtraction(deps: ExtractionDeps, run: ExtractionRu
     for (const name of thumbFiles) await storage.putFile(`${newPrefix}thumbs/${name}`, path.join(thumbsDir, name));
 
     const warnings = timeBase.warnings;
-    if (!warnings.some((w) => w.code === 'rate-differs')) {
-      const w = rateWarning(facts.containerFps, clip.captureFps);
-      if (w && !timeBase.variableFrameRate) warnings.unshift(w);
-    }
     await db.transaction(async (tx) => {
       const [current] = await tx.select({ status: clips.status }).from(clips).where(owned).for('update');
       if (!current || current.status !== 'extracting') throw new NotOwner();

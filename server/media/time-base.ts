@@ -39,6 +39,8 @@ const STEADY_FRACTION = 0.1;
 const MS_ROUNDING_S = 0.0011;
 /** A file is variable-rate when more than this share of its ordinary intervals are not steady. */
 const VFR_SHARE = 0.05;
+/** A variable-rate file whose average playback rate is within this fraction of the stated capture rate plays in real time. */
+const VFR_REAL_TIME_TOLERANCE = 0.1;
 
 function median(values: number[]): number {
   if (values.length === 0) return NaN;
@@ -92,15 +94,19 @@ export function analyseTimeBase(input: TimeBaseInput): TimeBase {
   const tickFps = input.baseFps > 0 && Math.abs(input.baseFps * m - 1) < 0.01 ? input.baseFps : 1 / m;
   const t0 = n > 0 ? ptsS[0] : 0;
   const playbackFps = input.containerFps > 0 ? input.containerFps : tickFps;
+  // A variable-rate file's average rate is not a clock: jitter and gaps pull it
+  // off the camera's nominal rate. A stated rate within 10 % of it means the
+  // file plays in real time, so its timestamps are real time (our rule).
+  const vfrScale = Math.abs(playbackFps / captureFps - 1) <= VFR_REAL_TIME_TOLERANCE ? 1 : playbackFps / captureFps;
   const frames: FrameTime[] = ptsS.map((pts, frameNumber) => ({
     frameNumber,
     ptsS: pts,
-    tS: variableFrameRate ? ((pts - t0) * playbackFps) / captureFps : Math.round((pts - t0) * tickFps) / captureFps,
+    tS: variableFrameRate ? (pts - t0) * vfrScale : Math.round((pts - t0) * tickFps) / captureFps,
     flag: flags[frameNumber],
   }));
 
   const warnings: ClipWarning[] = [];
-  const rate = rateWarning(variableFrameRate ? playbackFps : tickFps, captureFps);
+  const rate = variableFrameRate ? (vfrScale === 1 ? null : rateWarning(playbackFps, captureFps)) : rateWarning(tickFps, captureFps);
   if (rate) warnings.push(rate);
   if (variableFrameRate) {
     const ordinary = positive.filter((d) => d <= m * DROP_FACTOR);
@@ -108,7 +114,10 @@ export function analyseTimeBase(input: TimeBaseInput): TimeBase {
     const hi = 1 / Math.min(...ordinary);
     warnings.push({
       code: 'variable-frame-rate',
-      message: `Frame intervals vary (variable frame rate, ${formatFps(lo)}–${formatFps(hi)} fps in playback): each frame's time comes from its own timestamp, scaled by ${formatFps(playbackFps)}/${formatFps(captureFps)}.`,
+      message:
+        vfrScale === 1
+          ? `Frame intervals vary (variable frame rate, ${formatFps(lo)}–${formatFps(hi)} fps): each frame's time comes from its own timestamp.`
+          : `Frame intervals vary (variable frame rate, ${formatFps(lo)}–${formatFps(hi)} fps in playback): each frame's time comes from its own timestamp, scaled by ${formatFps(playbackFps)}/${formatFps(captureFps)}.`,
     });
   }
   const dropped = flags.map((f, i) => (f === 'dropped-before' ? i : -1)).filter((i) => i >= 0);
