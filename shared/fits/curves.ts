@@ -20,16 +20,16 @@ function evenTimes(t0: number, t1: number, count: number): number[] {
 }
 
 /**
- * The quadratic-drag path from the fitted launch state at tRef, sampled at the
- * given absolute times (which must not precede tRef). The fit's k is used as
- * fitted, even when drag is not resolved, so the curve shows what was fitted.
+ * The path of the model the headline numbers come from, from the fitted launch
+ * state at tRef, sampled at absolute times (not before tRef). When drag is not
+ * resolved the headline launch state is the drag-free one, so k is taken as 0
+ * there: pairing that state with the unresolved k would draw a path nobody fitted.
  */
 export function dragPathAt(result: FitShotResult, timesS: number[], gravityMps2 = STANDARD_GRAVITY_MPS2): CurvePoint[] {
   if (timesS.length === 0) return [];
   const speed = result.launchSpeedMps.value;
   const angle = result.launchAngleDeg.value * DEG;
-  // A drag-free headline still has a fitted k; plot the drag model's own numbers.
-  const k = result.dragK_perM.value;
+  const k = result.dragResolved ? result.dragK_perM.value : 0;
   const rel = timesS.map((t) => t - result.tRefS);
   const traj = simulateTrajectory(
     { dragK_perM: k, gravityMps2 },
@@ -99,7 +99,7 @@ export interface MarkWithFit {
   outlier: boolean;
 }
 
-/** Each mark beside the drag model's position at its time, residual = observed − fitted. */
+/** Each mark beside the headline model's position at its time, residual = observed − fitted. */
 export function marksWithFit(result: FitShotResult, marks: Mark[], gravityMps2?: number): MarkWithFit[] {
   const sorted = [...marks].sort((a, b) => a.tS - b.tS);
   const fitted = dragPathAt(result, sorted.map((m) => m.tS), gravityMps2);

@@ -2,6 +2,7 @@
 // handed to fitShot, so recomputing from it reproduces the result bit for bit;
 // everything else says where those numbers came from (pixels, calibration,
 // conditions) so a reviewer can trace each one.
+import type { CalibrationGeometry } from '../geometry/calibration-transform';
 import type { FitShotInput } from '../physics/types';
 
 export interface SnapshotMark {
@@ -44,7 +45,9 @@ export interface FitInputSnapshot {
     version: number;
     pixelsPerMetre: number;
     scaleRelUncertainty: number | null;
-    /** The calibration record as stored (origin, level, scale points), for the report. */
+    /** Scale points, origin, level, direction and plane: rebuilds the px↔world transform (shared/geometry). */
+    geometry: CalibrationGeometry;
+    /** The calibration record as stored, for the report. */
     record: Record<string, unknown>;
   };
   track: { id: string; kind: string; marksRevision: number };

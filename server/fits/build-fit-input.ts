@@ -1,0 +1,171 @@
+// Gathers everything a fit needs from the records: the track's marks in world
+// units (through the clip's current calibration and frame times), the shot's
+// conditions, the projectile and launcher. Returns the snapshot that is stored
+// with the fit; its `fitInput` is what fitShot sees.
+import { and, asc, desc, eq, inArray } from 'drizzle-orm';
+import { airForFit } from '../../shared/fits/air-conditions';
+import type { FitInputSnapshot, SnapshotMark } from '../../shared/fits/snapshot';
+import { buildCalibrationTransform, type CalibrationGeometry } from '../../shared/geometry/calibration-transform';
+import type { FitShotInput } from '../../shared/physics/types';
+import type { Db } from '../db/client';
+import { clipFrames, clips } from '../db/schema/clips';
+import { calibrations, marks, tracks } from '../db/schema/marking';
+import { launchers, projectiles, shots } from '../db/schema/records';
+import { notFound, unprocessable } from '../http/problem';
+
+/**
+ * Standard uncertainties of the projectile record when it states none.
+ * Common practice: a 0.1 g balance reading and a vernier calliper (0.05 mm),
+ * each taken as the standard uncertainty.
+ */
+export const DEFAULT_MASS_SIGMA_KG = 1e-4;
+export const DEFAULT_DIAMETER_SIGMA_M = 5e-5;
+
+type CalibrationRow = typeof calibrations.$inferSelect;
+
+/** The stored calibration columns as the geometry the shared transform takes (docs/marking-api.md). */
+export function calibrationGeometry(row: CalibrationRow): CalibrationGeometry {
+  const level: CalibrationGeometry['level'] =
+    row.levelKind === 'line'
+      ? { kind: 'line', p1: { u: row.levelP1UPx!, v: row.levelP1VPx! }, p2: { u: row.levelP2UPx!, v: row.levelP2VPx! } }
+      : { kind: 'angle', rollDeg: row.levelAngleDeg ?? row.rollDeg };
+  return {
+    scale: {
+      p1: { u: row.scaleP1UPx, v: row.scaleP1VPx },
+      p2: { u: row.scaleP2UPx, v: row.scaleP2VPx },
+      lengthM: row.lengthM,
+      lengthTolM: row.lengthTolM,
+      endpointSigmaPx: row.endpointSigmaPx,
+    },
+    origin: { u: row.originUPx, v: row.originVPx },
+    level,
+    downrange: row.downrange,
+    plane: row.planeCorrection
+      ? { corners: row.planeCorrection.corners, widthM: row.planeCorrection.widthM, heightM: row.planeCorrection.heightM }
+      : null,
+  };
+}
+
+export async function currentCalibration(db: Db, clipId: string): Promise<CalibrationRow | null> {
+  const [row] = await db.select().from(calibrations).where(eq(calibrations.clipId, clipId)).orderBy(desc(calibrations.version)).limit(1);
+  return row ?? null;
+}
+
+/** Frame times of the clip: the frame table where extracted, else frame / capture rate. */
+async function frameTimes(db: Db, clip: { id: string; captureFps: number }, frameNumbers: number[]): Promise<Map<number, number>> {
+  const times = new Map<number, number>();
+  if (frameNumbers.length > 0) {
+    const rows = await db
+      .select({ frameNumber: clipFrames.frameNumber, tS: clipFrames.tS })
+      .from(clipFrames)
+      .where(and(eq(clipFrames.clipId, clip.id), inArray(clipFrames.frameNumber, frameNumbers)));
+    for (const r of rows) times.set(r.frameNumber, r.tS);
+  }
+  for (const f of frameNumbers) if (!times.has(f) && clip.captureFps > 0) times.set(f, f / clip.captureFps);
+  return times;
+}
+
+export async function buildFitSnapshot(db: Db, teamId: string, trackId: string): Promise<FitInputSnapshot> {
+  const [track] = await db.select().from(tracks).where(and(eq(tracks.id, trackId), eq(tracks.teamId, teamId)));
+  if (!track) throw notFound('No such track in this team.');
+  if (track.kind !== 'projectile') throw unprocessable('Fits run on a projectile track; this one marks the muzzle.');
+  const [clip] = await db.select().from(clips).where(eq(clips.id, track.clipId));
+  if (!clip) throw notFound('The track’s clip is gone.');
+  const [shot] = await db.select().from(shots).where(eq(shots.id, clip.shotId));
+  if (!shot) throw notFound('The clip’s shot is gone.');
+  if (!shot.projectileId) throw unprocessable('The shot has no projectile: set one (mass and diameter are needed for Cd) and run the fit again.');
+  const [projectile] = await db.select().from(projectiles).where(eq(projectiles.id, shot.projectileId));
+  if (!projectile) throw unprocessable('The shot’s projectile no longer exists.');
+  const [launcher] = shot.launcherId ? await db.select().from(launchers).where(eq(launchers.id, shot.launcherId)) : [];
+  const calibration = await currentCalibration(db, clip.id);
+  if (!calibration) throw unprocessable('The clip is not calibrated: set scale, origin and level first.');
+  const geometry = calibrationGeometry(calibration);
+  const transform = buildCalibrationTransform(geometry);
+
+  const markRows = await db.select().from(marks).where(eq(marks.trackId, track.id)).orderBy(asc(marks.frameNumber));
+  // The muzzle: the first mark of the clip's first muzzle track, if any.
+  const [muzzleTrack] = await db
+    .select()
+    .from(tracks)
+    .where(and(eq(tracks.clipId, clip.id), eq(tracks.kind, 'muzzle')))
+    .orderBy(asc(tracks.createdAt))
+    .limit(1);
+  const [muzzleMark] = muzzleTrack
+    ? await db.select().from(marks).where(eq(marks.trackId, muzzleTrack.id)).orderBy(asc(marks.frameNumber)).limit(1)
+    : [];
+
+  const times = await frameTimes(db, clip, markRows.map((m) => m.frameNumber));
+  const snapshotMarks: SnapshotMark[] = [];
+  for (const m of markRows) {
+    const tS = times.get(m.frameNumber);
+    if (tS === undefined) throw unprocessable(`Frame ${m.frameNumber} has no time: the clip has no frame table and no capture rate.`);
+    const w = transform.imageToWorld({ u: m.uPx, v: m.vPx });
+    snapshotMarks.push({ frameNumber: m.frameNumber, tS, uPx: m.uPx, vPx: m.vPx, xM: w.x, yM: w.y });
+  }
+  snapshotMarks.sort((a, b) => a.tS - b.tS);
+  const muzzleWorld = muzzleMark ? transform.imageToWorld({ u: muzzleMark.uPx, v: muzzleMark.vPx }) : null;
+
+  const air = airForFit(shot);
+  const massSigma = DEFAULT_MASS_SIGMA_KG;
+  const diameterSigma = DEFAULT_DIAMETER_SIGMA_M;
+  const fitInput: FitShotInput = {
+    marks: snapshotMarks.map((m) => ({ tS: m.tS, xM: m.xM, yM: m.yM })),
+    massKg: projectile.massKg,
+    diameterM: projectile.diameterM,
+    airDensityKgM3: air.densityKgM3,
+    uncertainties: {
+      massKg: massSigma,
+      diameterM: diameterSigma,
+      airDensityKgM3: air.densitySigmaKgM3,
+      scaleRelative: calibration.scaleRelUncertainty,
+    },
+    airTemperatureK: air.temperatureK,
+    ...(muzzleWorld ? { muzzle: { xM: muzzleWorld.x, yM: muzzleWorld.y } } : {}),
+  };
+
+  const { id: _id, ...calibrationRecord } = calibration;
+  return {
+    schemaVersion: 1,
+    shot: {
+      id: shot.id,
+      label: shot.label,
+      airTempC: shot.airTempC,
+      stationPressurePa: shot.stationPressurePa,
+      relativeHumidityPct: shot.relativeHumidityPct,
+      chamberPressurePa: shot.chamberPressurePa,
+      elevationDeg: shot.elevationDeg,
+    },
+    projectile: {
+      id: projectile.id,
+      name: projectile.name,
+      massKg: projectile.massKg,
+      diameterM: projectile.diameterM,
+      referenceAreaM2: projectile.referenceAreaM2,
+    },
+    launcher: launcher
+      ? { id: launcher.id, name: launcher.name, boreM: launcher.boreM, barrelLengthM: launcher.barrelLengthM, chamberVolumeM3: launcher.chamberVolumeM3 }
+      : null,
+    clip: { id: clip.id, frameRateHz: clip.captureFps },
+    calibration: {
+      id: calibration.id,
+      version: calibration.version,
+      pixelsPerMetre: calibration.pixelsPerMetre,
+      scaleRelUncertainty: calibration.scaleRelUncertainty,
+      geometry: JSON.parse(JSON.stringify(geometry)) as CalibrationGeometry,
+      record: JSON.parse(JSON.stringify(calibrationRecord)) as Record<string, unknown>,
+    },
+    track: { id: track.id, kind: track.kind, marksRevision: track.revision },
+    marks: snapshotMarks,
+    muzzle: muzzleMark && muzzleWorld && muzzleTrack
+      ? { trackId: muzzleTrack.id, uPx: muzzleMark.uPx, vPx: muzzleMark.vPx, xM: muzzleWorld.x, yM: muzzleWorld.y }
+      : null,
+    air: { densityKgM3: air.densityKgM3, temperatureK: air.temperatureK, source: air.source },
+    uncertainties: {
+      massKg: { value: massSigma, source: 'stated default: 0.1 g balance reading (common practice)' },
+      diameterM: { value: diameterSigma, source: 'stated default: 0.05 mm calliper reading (common practice)' },
+      airDensityKgM3: { value: air.densitySigmaKgM3, source: air.sigmaSource },
+      scaleRelative: { value: calibration.scaleRelUncertainty, source: `calibration version ${calibration.version} (reference length tolerance and end-point clicks, GUM)` },
+    },
+    fitInput,
+  };
+}

@@ -1,0 +1,69 @@
+import { useEffect, useMemo, useState } from 'react';
+import { Circle, Image as KonvaImage, Layer, Line, Stage } from 'react-konva';
+import { buildCalibrationTransform } from '@shared/geometry/calibration-transform';
+import type { FitDetail } from '@shared/schemas/fits';
+import { frameImageUrl } from '../api/keys';
+import type { FitPlots } from '../hooks/use-fit-plots';
+import { CHART } from './chart-colours';
+
+const MAX_WIDTH = 720;
+
+function useImage(url: string) {
+  const [image, setImage] = useState<HTMLImageElement | null>(null);
+  const [failed, setFailed] = useState(false);
+  useEffect(() => {
+    const img = new window.Image();
+    img.onload = () => setImage(img);
+    img.onerror = () => setFailed(true);
+    img.src = url;
+    return () => {
+      img.onload = null;
+      img.onerror = null;
+    };
+  }, [url]);
+  return { image, failed };
+}
+
+/**
+ * The fitted paths drawn back onto a frame of the clip, through the inverse of
+ * the calibration the fit used: a reviewer sees at once whether the model
+ * follows the projectile in the picture.
+ */
+export function FrameOverlay({ teamId, fit, plots }: { teamId: string; fit: FitDetail; plots: FitPlots }) {
+  const marks = fit.snapshot.marks;
+  const frame = marks[Math.floor(marks.length / 2)]?.frameNumber ?? 0;
+  const { image, failed } = useImage(frameImageUrl(teamId, fit.clipId, frame));
+  const transform = useMemo(() => {
+    try {
+      return buildCalibrationTransform(fit.snapshot.calibration.geometry);
+    } catch {
+      return null;
+    }
+  }, [fit.snapshot.calibration.geometry]);
+
+  if (failed) return <p className="text-body text-ink-soft">The frame image could not be loaded, so the overlay is not shown.</p>;
+  if (!transform) return <p className="text-body text-ink-soft">The stored calibration cannot be drawn.</p>;
+  if (!image) return <p className="text-body text-ink-faint">Loading frame {frame}…</p>;
+
+  const scale = Math.min(1, MAX_WIDTH / image.naturalWidth);
+  const toPoints = (pts: { xM: number; yM: number }[]) =>
+    pts.flatMap((p) => {
+      const q = transform.worldToImage({ x: p.xM, y: p.yM });
+      return [q.u * scale, q.v * scale];
+    });
+  return (
+    <figure aria-label={`Fit overlaid on frame ${frame}`} data-chart="overlay">
+      <Stage width={image.naturalWidth * scale} height={image.naturalHeight * scale}>
+        <Layer listening={false}>
+          <KonvaImage image={image} width={image.naturalWidth * scale} height={image.naturalHeight * scale} />
+          <Line points={toPoints(plots.curves.dragFree)} stroke={CHART.dragFree} strokeWidth={1.5} dash={[6, 4]} />
+          <Line points={toPoints(plots.curves.drag)} stroke={CHART.fit} strokeWidth={2} />
+          {marks.map((m) => (
+            <Circle key={m.frameNumber} x={m.uPx * scale} y={m.vPx * scale} radius={6 * Math.max(scale, 0.5)} stroke={CHART.marks} strokeWidth={1.5} />
+          ))}
+        </Layer>
+      </Stage>
+      <figcaption className="mt-1 text-micro text-ink-faint">Frame {frame}: marks (amber rings), drag fit (teal), drag-free fit (violet, dashed).</figcaption>
+    </figure>
+  );
+}
