@@ -5,7 +5,7 @@ import { eq } from 'drizzle-orm';
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { ROLES, type Role } from '../../shared/roles';
-import { teams } from '../../server/db/schema/teams';
+import { memberships, teams } from '../../server/db/schema/teams';
 import type { RouteSpec } from '../../server/http/route-table';
 import { DEMO_PASSWORD, DEMO_TEAM, demoPerson } from '../../server/seed/demo-people';
 import { createTestApp, signInAs } from '../support/test-app';
@@ -16,9 +16,18 @@ const specs = t.app.locals.routeSpecs as RouteSpec[];
 const [demoTeam] = await t.deps.db.select({ id: teams.id }).from(teams).where(eq(teams.slug, DEMO_TEAM.slug));
 if (!demoTeam) throw new Error('the demo team is not seeded');
 
+const demoMembers = () =>
+  t.deps.db
+    .select({ userId: memberships.userId, role: memberships.role })
+    .from(memberships)
+    .where(eq(memberships.teamId, demoTeam.id))
+    .orderBy(memberships.userId);
+
 const agents = new Map<Role, Awaited<ReturnType<typeof signInAs>>>();
+let membersBefore: Awaited<ReturnType<typeof demoMembers>>;
 beforeAll(async () => {
   for (const role of ROLES) agents.set(role, await signInAs(t.app, demoPerson(role).email, DEMO_PASSWORD));
+  membersBefore = await demoMembers();
 });
 afterAll(() => t.close());
 
@@ -46,6 +55,14 @@ function call(client: request.Agent | ReturnType<typeof request>, spec: RouteSpe
 }
 
 const SIGN_OUT = '/api/auth/sign-out';
+
+/**
+ * Writes whose path names nothing but the team could act on demo data when `{}` happens
+ * to be a valid body. Such a write must fail validation; one that may succeed is listed
+ * here only once it is known not to change stored data.
+ */
+const HARMLESS_EMPTY_WRITES = new Set(['POST /api/auth/sign-out']);
+const writesWithoutTarget = (spec: RouteSpec) => spec.method !== 'get' && !/:(?!teamId\b)\w+/.test(spec.path);
 const label = (spec: RouteSpec) => `${spec.method.toUpperCase()} ${spec.path}`;
 const cases = specs.map((spec) => ({ name: label(spec), spec }));
 
@@ -78,5 +95,14 @@ describe.each(cases)('$name', ({ spec }) => {
     const allowed = spec.access.kind !== 'team' || spec.access.roles.includes(role);
     if (allowed) expect([401, 403], `${res.status} ${JSON.stringify(res.body)}`).not.toContain(res.status);
     else expect(res.status, JSON.stringify(res.body)).toBe(403);
+    if (allowed && writesWithoutTarget(spec) && !HARMLESS_EMPTY_WRITES.has(label(spec))) {
+      expect(res.status, `${label(spec)} accepted an empty body as ${role}; it must validate its body (or be listed as harmless)`).toBeGreaterThanOrEqual(400);
+    }
+  });
+});
+
+describe('after the matrix', () => {
+  it('the demo team still has the same people in the same roles', async () => {
+    expect(await demoMembers()).toEqual(membersBefore);
   });
 });
