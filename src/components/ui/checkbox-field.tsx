@@ -1,6 +1,6 @@
 import { useId, type ComponentProps, type ReactNode } from 'react';
 import { cx } from './cx';
-import { describedBy } from './field-shell';
+import { describedBy, sentence } from './field-shell';
 
 export interface CheckboxFieldProps extends Omit<ComponentProps<'input'>, 'id' | 'type'> {
   label: ReactNode;
@@ -35,7 +35,7 @@ export function CheckboxField({ label, hint, error, id, className, fieldClassNam
         )}
         {error && (
           <p id={`${boxId}-error`} className="text-micro font-medium text-alert">
-            {error}
+            {sentence(error)}
           </p>
         )}
       </div>

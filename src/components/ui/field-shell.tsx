@@ -37,11 +37,16 @@ export function FieldShell({ id, label, hint, error, required, className, childr
       )}
       {error && (
         <p id={`${id}-error`} className="text-micro font-medium text-alert">
-          {error}
+          {sentence(error)}
         </p>
       )}
     </div>
   );
+}
+
+/** Schema messages are fragments ("is required"); under a label they read better as a sentence. */
+export function sentence(message: string): string {
+  return message.charAt(0).toUpperCase() + message.slice(1);
 }
 
 export function controlClasses(invalid: boolean, className?: string): string {

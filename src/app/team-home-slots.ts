@@ -1,0 +1,12 @@
+import { CAN } from '@shared/roles';
+import type { TeamHomeLink, TeamHomePanel } from '@/features/teams/components/team-home-page';
+
+// What the team home offers, per role. Features add their shortcuts and
+// panels here (one entry each); the team home only renders what it is given.
+export const TEAM_HOME_LINKS: TeamHomeLink[] = [
+  { label: 'Members', description: 'Who is in the team and what each role does.', to: (teamId) => `/t/${teamId}/members` },
+  { label: 'Invite people', description: 'Send an invitation by e-mail with a role.', to: (teamId) => `/t/${teamId}/members#invite`, roles: CAN.manageMembers },
+  { label: 'Outbox', description: 'Every e-mail Arcbench sent for this team.', to: (teamId) => `/t/${teamId}/outbox`, roles: CAN.manageMembers },
+];
+
+export const TEAM_HOME_PANELS: TeamHomePanel[] = [];

@@ -1,0 +1,28 @@
+import { useMutation, useQueryClient } from '@tanstack/react-query';
+import type { z } from 'zod';
+import type { TeamCreateBody } from '@shared/schemas/teams';
+import { apiPost } from '@/lib/api-client';
+import { meKeys } from '@/lib/use-me';
+import { teamKeys } from './keys';
+
+export type CreateTeamInput = z.input<typeof TeamCreateBody>;
+
+export interface CreatedTeam {
+  id: string;
+  name: string;
+}
+
+export function createTeam(body: CreateTeamInput): Promise<CreatedTeam> {
+  return apiPost<CreatedTeam>('/api/teams', { ...body });
+}
+
+/** The creator becomes the team's admin, so "me" (my teams and roles) changes too. */
+export function useCreateTeam() {
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationFn: createTeam,
+    onSuccess: async () => {
+      await Promise.all([queryClient.invalidateQueries({ queryKey: meKeys.me }), queryClient.invalidateQueries({ queryKey: teamKeys.all })]);
+    },
+  });
+}
