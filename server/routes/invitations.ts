@@ -1,6 +1,7 @@
 import type { Request, Response } from 'express';
 import { and, desc, eq, isNull, sql } from 'drizzle-orm';
 import { alias } from 'drizzle-orm/pg-core';
+import { rateLimit } from 'express-rate-limit';
 import { CAN } from '../../shared/roles';
 import { TeamParams } from '../../shared/schemas/common';
 import {
@@ -21,7 +22,7 @@ import { invitations } from '../db/schema/invitations';
 import { memberships, teams } from '../db/schema/teams';
 import { users } from '../db/schema/users';
 import { currentTeam, currentUser, input } from '../http/input';
-import { HttpProblem, badRequest, conflict, notFound, unauthorized } from '../http/problem';
+import { HttpProblem, badRequest, conflict, notFound, sendProblem, unauthorized } from '../http/problem';
 import type { RouteTable } from '../http/route-table';
 import { validate } from '../http/validate';
 import { invitationMail } from '../teams/invitation-mail';
@@ -29,6 +30,17 @@ import { invitationState } from '../teams/invitation-state';
 import { INVITATION_LIFETIME_MS, hashInvitationToken, newInvitationToken } from '../teams/invitation-token';
 
 export function invitationRoutes(api: RouteTable, { db, config, mailer }: AppDeps) {
+  // Accepting as an existing user checks a password, so failed attempts are limited like sign-in.
+  const acceptLimit = rateLimit({
+    windowMs: 15 * 60 * 1000,
+    limit: config.signInLimitPerWindow,
+    skipSuccessfulRequests: true,
+    standardHeaders: 'draft-8',
+    legacyHeaders: false,
+    handler: (req, res) =>
+      sendProblem(res, new HttpProblem(429, 'Too many attempts', 'Too many failed attempts to accept invitations from this address. Wait 15 minutes and try again.'), req.originalUrl),
+  });
+
   api.get('/api/teams/:teamId/invitations', 'Invitations of the team, newest first', signedIn, teamRole(CAN.manageMembers), validate({ params: TeamParams }), listInvitations);
   api.post(
     '/api/teams/:teamId/invitations',
@@ -51,6 +63,7 @@ export function invitationRoutes(api: RouteTable, { db, config, mailer }: AppDep
     '/api/invitations/:token/accept',
     'Accept an invitation: join the team (creating the account if needed) and sign in',
     open,
+    acceptLimit,
     validate({ params: InvitationTokenParams, body: InvitationAcceptBody }),
     acceptInvitation,
   );

@@ -236,3 +236,18 @@ describe('outbox with real SMTP configured', () => {
     expect(out.body).toMatchObject({ items: [], fakeMail: false });
   });
 });
+
+describe('accepting is rate-limited like sign-in', () => {
+  let limited: TestApp;
+  beforeAll(async () => {
+    limited = await createTestApp({ signInLimitPerWindow: 2 });
+  });
+  afterAll(() => limited.close());
+
+  it('refuses the 3rd failed attempt in the window with 429 problem+json', async () => {
+    const attempt = () => agent(limited.app).post(`/api/invitations/${'B'.repeat(43)}/accept`).send({ password: 'guessing a password' });
+    expectProblem(await attempt(), 404);
+    expectProblem(await attempt(), 404);
+    expectProblem(await attempt(), 429);
+  });
+});
