@@ -117,6 +117,15 @@ describe('fitShot synthetic round trip', () => {
     expect(slow.cautions.some((c) => /compressibility|drag crisis/.test(c))).toBe(false);
   });
 
+  it('per-mark sigmas weight the fit: a noisier second half counts less', () => {
+    const marks = syntheticMarks({ speedMps: 30, angleDeg: 40, dragK_perM: K_SPHERE, frameRateHz: 240, markCount: 120, noiseM: 0.002, seed: 13 });
+    const noisy = marks.map((m, i) => (i < 60 ? { ...m, sigmaM: 0.002 } : { ...m, yM: m.yM + (i % 2 ? 0.02 : -0.02), sigmaM: 0.02 }));
+    const weighted = fitShot({ marks: noisy, ...BALL });
+    const unweighted = fitShot({ marks: noisy.map(({ sigmaM: _s, ...m }) => m), ...BALL });
+    expect(Math.abs(weighted.launchSpeedMps.value - 30)).toBeLessThan(Math.abs(unweighted.launchSpeedMps.value - 30) + 0.05);
+    expect(weighted.launchSpeedMps.stdErr).toBeLessThan(unweighted.launchSpeedMps.stdErr);
+  });
+
   it('rejects bad input with a one-line message', () => {
     const marks = syntheticMarks({ speedMps: 20, angleDeg: 40, dragK_perM: 0.01, frameRateHz: 240, markCount: 20, noiseM: 0.001, seed: 1 });
     expect(() => fitShot({ marks: marks.slice(0, 4), ...BALL })).toThrow(FitInputError);
