@@ -6,6 +6,7 @@ import { invitations } from '../../server/db/schema/invitations';
 import { mailMessages } from '../../server/db/schema/mail-messages';
 import { memberships, teams } from '../../server/db/schema/teams';
 import { users } from '../../server/db/schema/users';
+import { createMailer, type Mailer } from '../../server/mail/mailer';
 import { DEMO_PASSWORD, DEMO_TEAM, demoPerson } from '../../server/seed/demo-people';
 import { argon2Params } from '../support/argon2-params';
 import { expectProblem, fieldPaths } from '../support/problem';
@@ -249,5 +250,32 @@ describe('accepting is rate-limited like sign-in', () => {
     expectProblem(await attempt(), 404);
     expectProblem(await attempt(), 404);
     expectProblem(await attempt(), 429);
+  });
+});
+
+describe('when the mail server refuses', () => {
+  let broken: TestApp;
+  let deadMailer: Mailer;
+  beforeAll(async () => {
+    // A real SMTP client pointed at a closed loopback port: the connection is refused.
+    deadMailer = createMailer('smtp://127.0.0.1:1', 'Arcbench <no-reply@arcbench.invalid>');
+    broken = await createTestApp({}, { mailer: deadMailer });
+  });
+  afterAll(async () => {
+    deadMailer.close();
+    await broken.close();
+  });
+
+  it('reports 502, saves no invitation, and keeps the earlier one valid', async () => {
+    const email = newAddress('unsent');
+    await invite(email, 'viewer'); // through the working app
+    const token = await tokenSentTo(email);
+    const a = await signInAs(broken.app, demoPerson('admin').email, DEMO_PASSWORD);
+    const res = await a.post(`/api/teams/${teamId}/invitations`).send({ email, role: 'analyst' });
+    expectProblem(res, 502);
+    expect(res.body.detail).toMatch(/could not be sent/);
+    const rows = await t.deps.db.select().from(invitations).where(eq(invitations.email, email));
+    expect(rows).toHaveLength(1);
+    expect((await anonymous().get(`/api/invitations/${token}`)).body).toMatchObject({ state: 'pending', role: 'viewer' });
   });
 });
