@@ -2,10 +2,18 @@ import { BrowserRouter, Route, Routes } from 'react-router';
 import { AcceptInvitationPage } from '@/features/auth/components/accept-invitation-page';
 import { SignInPage } from '@/features/auth/components/sign-in-page';
 import { TeamHomePage } from '@/features/teams/components/team-home-page';
+import { WorkspacePage } from '@/features/workspace/components/workspace-page';
+import { KitPage } from '@/features/records/components/kit-page';
+import { SeriesPage } from '@/features/records/components/series-page';
+import { ShotEditPage } from '@/features/records/components/shot-edit-page';
+import { ShotNewPage } from '@/features/records/components/shot-new-page';
+import { ShotsPage } from '@/features/records/components/shots-page';
+import { CAN } from '@shared/roles';
 import { AppShell } from './app-shell';
 import { HomeRedirect } from './home-redirect';
 import { NotFoundPage } from './not-found-page';
 import { PublicLayout } from './public-layout';
+import { RequireRole } from './require-role';
 import { RequireSignIn } from './require-sign-in';
 import { TeamGate } from './team-gate';
 import { TEAM_HOME_LINKS, TEAM_HOME_PANELS } from './team-home-slots';
@@ -27,6 +35,12 @@ export function AppRouter() {
             <Route index element={<HomeRedirect />} />
             <Route path="/t/:teamId" element={<TeamGate />}>
               <Route index element={<TeamHomePage links={TEAM_HOME_LINKS} panels={TEAM_HOME_PANELS} />} />
+              <Route path="clips/:clipId/workspace" element={<WorkspacePage />} />
+              <Route path="shots" element={<ShotsPage />} />
+              <Route path="shots/new" element={<RequireRole roles={CAN.editShots}><ShotNewPage /></RequireRole>} />
+              <Route path="shots/:shotId/edit" element={<RequireRole roles={CAN.editShots}><ShotEditPage /></RequireRole>} />
+              <Route path="series" element={<SeriesPage />} />
+              <Route path="kit" element={<KitPage />} />
             </Route>
             <Route path="*" element={<NotFoundPage />} />
           </Route>

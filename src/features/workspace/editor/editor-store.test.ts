@@ -40,6 +40,13 @@ describe('editor store', () => {
     expect(editor.getState().marksByTrack.ball[0]).toMatchObject({ uPx: 10.4, vPx: 9.7, placedUPx: 10, placedVPx: 10, snapped: true });
   });
 
+  it('does not snap while snapping is switched off', () => {
+    const { editor } = loadedEditor({ snap: (_f, p) => ({ u: p.u + 1, v: p.v }) });
+    editor.setSnap(false);
+    editor.placeMark({ u: 10, v: 10 });
+    expect(editor.getState().marksByTrack.ball[0]).toMatchObject({ uPx: 10, vPx: 10, snapped: false });
+  });
+
   it('keeps the click as placed when the snapper finds nothing', () => {
     const { editor } = loadedEditor({ snap: () => null });
     editor.placeMark({ u: 10, v: 10 });

@@ -52,6 +52,8 @@ export interface EditorState {
   selection: { trackId: string; frameNumber: number } | null;
   history: History;
   permissions: EditorPermissions;
+  /** Refine clicks to the projectile's centroid (on by default). */
+  snapOn: boolean;
 }
 
 export interface MarkWrite {
@@ -110,6 +112,7 @@ export function initialEditorState(): EditorState {
     selection: null,
     history: EMPTY_HISTORY,
     permissions: { canMark: false, canCalibrate: false },
+    snapOn: true,
   };
 }
 
@@ -280,6 +283,10 @@ export function createEditor(options: EditorOptions = {}) {
       set({ ...state, activeTool: tool, toolStates: initialToolStates(), dialog: null });
     },
 
+    setSnap(on: boolean) {
+      if (on !== state.snapOn) set({ ...state, snapOn: on });
+    },
+
     setView(view: ViewTransform) {
       set({ ...state, view });
     },
@@ -298,7 +305,7 @@ export function createEditor(options: EditorOptions = {}) {
       const trackId = at.trackId ?? state.activeTrackId;
       const frameNumber = at.frameNumber ?? state.frameNumber;
       if (!trackId || !state.permissions.canMark) return;
-      const snappedTo = options.snap?.(frameNumber, point) ?? null;
+      const snappedTo = state.snapOn ? (options.snap?.(frameNumber, point) ?? null) : null;
       const p = snappedTo ?? point;
       const after: EditorMark = { trackId, frameNumber, uPx: p.u, vPx: p.v, placedUPx: point.u, placedVPx: point.v, snapped: snappedTo !== null };
       const before = markAt(state, trackId, frameNumber);
@@ -378,6 +385,18 @@ export function createEditor(options: EditorOptions = {}) {
      */
     applyServerMark(trackId: string, frameNumber: number, mark: EditorMark | null) {
       set(withMark(state, trackId, frameNumber, mark));
+    },
+
+    /** After a file import: the track's marks are what the server now holds; old undo steps on it no longer apply. */
+    replaceTrackMarks(trackId: string, marks: EditorMark[]) {
+      const track: Record<number, EditorMark> = {};
+      for (const m of marks) track[m.frameNumber] = m;
+      const keep = (c: EditorCommand) => c.kind !== 'mark' || c.trackId !== trackId;
+      set({
+        ...state,
+        marksByTrack: { ...state.marksByTrack, [trackId]: track },
+        history: { undo: state.history.undo.filter(keep), redo: state.history.redo.filter(keep) },
+      });
     },
 
     setDialog(dialog: ToolDialog | null) {

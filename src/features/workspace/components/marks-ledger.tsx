@@ -1,0 +1,167 @@
+import { useMemo, useRef, useState } from 'react';
+import { Badge } from '@/components/ui/badge';
+import { buttonClasses, Button } from '@/components/ui/button';
+import { Card } from '@/components/ui/card';
+import { DataTable, dataTableColumns } from '@/components/ui/data-table';
+import { formatNumber } from '@/lib/format';
+import type { CalibrationTransform } from '@shared/geometry/calibration-transform';
+import type { MarksCsvKind } from '@shared/schemas/marking';
+import { exportMarksUrl } from '../api/export-marks';
+import { fetchMarks } from '../api/get-marks';
+import { useImportMarks } from '../api/import-marks';
+import type { Editor } from '../editor/editor-store';
+import { marksOfTrack } from '../editor/editor-store';
+import { useEditor } from '../hooks/use-editor';
+import { apiMarkToEditor, type MarkSaving } from '../hooks/use-mark-saving';
+
+export interface LedgerRow {
+  frameNumber: number;
+  tS: number | null;
+  uPx: number;
+  vPx: number;
+  xM: number | null;
+  yM: number | null;
+  snapped: boolean;
+}
+
+const col = dataTableColumns<LedgerRow>();
+
+interface MarksLedgerProps {
+  editor: Editor;
+  teamId: string;
+  transform: CalibrationTransform | null;
+  saving: MarkSaving;
+}
+
+/** Every mark of the active track with its time, pixel and world position; CSV in and out. */
+export function MarksLedger({ editor, teamId, transform, saving }: MarksLedgerProps) {
+  const activeTrackId = useEditor(editor, (s) => s.activeTrackId);
+  const trackMarks = useEditor(editor, (s) => (activeTrackId ? s.marksByTrack[activeTrackId] : undefined));
+  const frames = useEditor(editor, (s) => s.frames);
+  const canMark = useEditor(editor, (s) => s.permissions.canMark);
+  const track = useEditor(editor, (s) => s.tracks.find((t) => t.id === activeTrackId));
+
+  const rows = useMemo<LedgerRow[]>(() => {
+    const timeOf = new Map(frames.map((f) => [f.frameNumber, f.tS]));
+    return marksOfTrack(editor.getState(), activeTrackId).map((m) => {
+      const w = transform ? transform.imageToWorld({ u: m.uPx, v: m.vPx }) : null;
+      return { frameNumber: m.frameNumber, tS: timeOf.get(m.frameNumber) ?? null, uPx: m.uPx, vPx: m.vPx, xM: w?.x ?? null, yM: w?.y ?? null, snapped: m.snapped };
+    });
+    // trackMarks is the dependency that changes when marks do.
+  }, [editor, activeTrackId, trackMarks, frames, transform]); // eslint-disable-line react-hooks/exhaustive-deps
+
+  const columns = useMemo(
+    () =>
+      col.columns([
+        col.accessor('frameNumber', {
+          header: 'Frame',
+          meta: { numeric: true },
+          cell: (c) => (
+            <button type="button" className="rounded-sm font-medium text-ink underline decoration-line underline-offset-2 hover:decoration-signal" onClick={() => editor.goToFrame(c.getValue())}>
+              {c.getValue()}
+            </button>
+          ),
+        }),
+        col.accessor('tS', { header: 't (ms)', meta: { numeric: true }, cell: (c) => formatNumber(c.getValue() === null ? null : c.getValue()! * 1000, { decimals: 3 }) }),
+        col.accessor('uPx', { header: 'u (px)', meta: { numeric: true }, cell: (c) => formatNumber(c.getValue(), { decimals: 2 }) }),
+        col.accessor('vPx', { header: 'v (px)', meta: { numeric: true }, cell: (c) => formatNumber(c.getValue(), { decimals: 2 }) }),
+        col.accessor('xM', { header: 'x (m)', meta: { numeric: true }, cell: (c) => formatNumber(c.getValue(), { decimals: 4 }) }),
+        col.accessor('yM', { header: 'y (m)', meta: { numeric: true }, cell: (c) => formatNumber(c.getValue(), { decimals: 4 }) }),
+        col.accessor('snapped', {
+          header: 'How',
+          cell: (c) => (c.getValue() ? <Badge tone="fit">snapped</Badge> : <Badge tone="signal">placed</Badge>),
+        }),
+      ]),
+    [editor],
+  );
+
+  return (
+    <Card
+      title="Marks ledger"
+      subtitle={`${track?.label ?? 'No track'} · ${rows.length} marks${transform ? '' : ' · world values need a scale and an origin'}`}
+      flush
+    >
+      <div className="p-3">
+        <DataTable
+          caption="Marks ledger"
+          columns={columns}
+          data={rows}
+          getRowId={(r) => String(r.frameNumber)}
+          dense
+          filterPlaceholder={false}
+          empty="No marks on this track yet. Pick Place (P) and click the projectile."
+          toolbar={activeTrackId ? <CsvControls teamId={teamId} trackId={activeTrackId} canImport={canMark} hasWorld={!!transform} editor={editor} saving={saving} /> : null}
+        />
+      </div>
+    </Card>
+  );
+}
+
+interface CsvControlsProps {
+  teamId: string;
+  trackId: string;
+  canImport: boolean;
+  hasWorld: boolean;
+  editor: Editor;
+  saving: MarkSaving;
+}
+
+function CsvControls({ teamId, trackId, canImport, hasWorld, editor, saving }: CsvControlsProps) {
+  const importMarks = useImportMarks(teamId);
+  const file = useRef<HTMLInputElement>(null);
+  const [kind, setKind] = useState<MarksCsvKind>('pixel');
+  const [message, setMessage] = useState<{ tone: 'ok' | 'alert'; text: string } | null>(null);
+
+  const onFile = async (f: File | undefined) => {
+    if (!f) return;
+    setMessage(null);
+    try {
+      const csv = await f.text();
+      const result = await importMarks.mutateAsync({ trackId, body: { csv, kind } });
+      const now = await fetchMarks(teamId, trackId);
+      saving.seed(trackId, now.marks);
+      editor.replaceTrackMarks(trackId, now.marks.map((m) => apiMarkToEditor(trackId, m)));
+      setMessage({ tone: 'ok', text: `Imported ${result.imported} marks.` });
+    } catch (err) {
+      setMessage({ tone: 'alert', text: `Nothing imported: ${err instanceof Error ? err.message : String(err)}` });
+    } finally {
+      if (file.current) file.current.value = '';
+    }
+  };
+
+  return (
+    <div className="flex flex-wrap items-center gap-2">
+      <a className={buttonClasses('secondary', 'sm')} href={exportMarksUrl(teamId, trackId, 'pixel')} download>
+        Export pixels CSV
+      </a>
+      {hasWorld && (
+        <a className={buttonClasses('secondary', 'sm')} href={exportMarksUrl(teamId, trackId, 'world')} download>
+          Export world CSV
+        </a>
+      )}
+      {canImport && (
+        <>
+          <label className="sr-only" htmlFor="ledger-import-kind">Import file type</label>
+          <select
+            id="ledger-import-kind"
+            value={kind}
+            onChange={(e) => setKind(e.target.value as MarksCsvKind)}
+            className="h-7 rounded-md border border-line bg-paper-raised px-1.5 text-micro"
+          >
+            <option value="pixel">frame,u_px,v_px</option>
+            <option value="world" disabled={!hasWorld}>t_s,x_m,y_m</option>
+          </select>
+          <input ref={file} type="file" accept=".csv,text/csv" className="sr-only" id="ledger-import-file" onChange={(e) => onFile(e.target.files?.[0])} />
+          <Button size="sm" onClick={() => file.current?.click()} busy={importMarks.isPending}>
+            Import CSV…
+          </Button>
+        </>
+      )}
+      {message && (
+        <span role={message.tone === 'alert' ? 'alert' : 'status'} className={message.tone === 'alert' ? 'text-micro text-alert' : 'text-micro text-fit-dark'}>
+          {message.text}
+        </span>
+      )}
+    </div>
+  );
+}

@@ -1,0 +1,22 @@
+/// <reference lib="webworker" />
+// Runs the preview fits off the main thread: a drag fit takes tens of
+// milliseconds, which would otherwise stall clicking and stepping.
+import { flightPreview } from './flight-preview';
+import type { Mark } from '@shared/physics/types';
+
+export interface PreviewRequest {
+  id: number;
+  marks: Mark[];
+  nextTS: number;
+}
+
+self.onmessage = (event: MessageEvent<PreviewRequest>) => {
+  const { id, marks, nextTS } = event.data;
+  let preview = null;
+  try {
+    preview = flightPreview(marks, nextTS);
+  } catch {
+    preview = null;
+  }
+  (self as unknown as Worker).postMessage({ id, preview });
+};
