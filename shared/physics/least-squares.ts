@@ -63,7 +63,10 @@ export interface LeastSquaresResult {
   jacobian: number[][];
   iterations: number;
   restarts: number;
+  /** Burst test met and the residual is orthogonal to the Jacobian (cosine < 1e-4). */
   converged: boolean;
+  /** Largest cosine between the weighted residual and a Jacobian column (0 at an exact minimum). */
+  maxGradientCosine: number;
   /** Smallest singular value over largest of the weighted, column-scaled Jacobian. */
   inverseCondition: number;
 }
@@ -142,12 +145,15 @@ export function leastSquares(problem: LeastSquaresProblem, options: LeastSquares
   let restarts = 0;
   let converged = false;
   let quietBursts = 0;
+  let startDamping = 1e-2;
   const dataX = Array.from({ length: n }, (_, i) => i);
   const scale = new Float64Array(np);
   const infinite = new Array(np).fill(Number.POSITIVE_INFINITY);
   const negInfinite = new Array(np).fill(Number.NEGATIVE_INFINITY);
 
-  while (iterations < maxIterations) {
+  const maxRestarts = Math.ceil(maxIterations / burst) + 20;
+  let polishDamping = 1e-6;
+  while (iterations < maxIterations && restarts < maxRestarts) {
     // Scale each parameter by its current column norm (Marquardt scaling).
     jac(p, pred, columns, false);
     for (let j = 0; j < np; j++) {
@@ -202,26 +208,49 @@ export function leastSquares(problem: LeastSquaresProblem, options: LeastSquares
         for (let j = 0; j < np; j++) jacU[j] = u[j];
       }
       // The library copies each row straight into its matrix, so one buffer is reused.
+      // Non-finite derivatives (overflow far from the answer) become 0 so the
+      // step stays defined; the error check then rejects a bad point.
       const row = new Array<number>(np);
       return (i: number) => {
-        for (let j = 0; j < np; j++) row[j] = cacheCols[j][i] * scale[j] * wEff[i];
+        for (let j = 0; j < np; j++) {
+          const v = cacheCols[j][i] * scale[j] * wEff[i];
+          row[j] = Number.isFinite(v) ? v : 0;
+        }
         return row;
       };
     };
-    const run = levenbergMarquardt({ x: dataX, y: dataY }, parameterizedFunction, {
-      initialValues: new Array(np).fill(0),
-      damping: polish ? 1e-6 : 1e-2,
-      maxIterations: burst,
-      errorTolerance: 0,
-      minValues: negInfinite,
-      maxValues: infinite,
-      jacobianFunction,
-    });
-    iterations += run.iterations;
+    let run: { parameterValues: number[]; iterations: number };
+    try {
+      run = levenbergMarquardt({ x: dataX, y: dataY }, parameterizedFunction, {
+        initialValues: new Array(np).fill(0),
+        damping: polish ? polishDamping : startDamping,
+        maxIterations: burst,
+        errorTolerance: 0,
+        minValues: negInfinite,
+        maxValues: infinite,
+        jacobianFunction,
+      });
+    } catch {
+      // A numerical failure inside the library (e.g. a singular system): restart
+      // from the best point with stronger damping.
+      run = { parameterValues: new Array(np).fill(0), iterations: burst };
+      startDamping = Math.min(startDamping * 100, 1e6);
+    }
+    iterations += Math.max(run.iterations, 1);
     restarts++;
     const pNew: Float64Array = toParams(run.parameterValues, new Float64Array(np));
     problem.model(pNew, pred);
     const rssNew = sumSquares(obs, pred, w);
+    // The library stops early only on an exact fit or when the error became
+    // NaN (a step into overflow). In the second case, damp harder next time
+    // and do not read the stop as convergence.
+    if (run.iterations < burst && rssNew > 0) {
+      if (polish) polishDamping = Math.min(polishDamping * 100, 1e6);
+      else startDamping = Math.min(startDamping * 100, 1e6);
+      if (rssNew < rss) { p = pNew; rss = rssNew; } else problem.model(p, pred);
+      quietBursts = 0;
+      continue;
+    }
     if (!(rssNew <= rss)) {
       // The burst found nothing better: the start is the minimum to working precision.
       problem.model(p, pred);
@@ -275,6 +304,22 @@ function finishLeastSquares(
     for (let i = 0; i < n; i++) c[i] /= colNorm[j];
     return c;
   });
+  // Stationarity: at a minimum the weighted residual is orthogonal to every
+  // Jacobian column. The largest cosine between them must be small, otherwise
+  // the search stalled (flat region, saddle) rather than converged.
+  const rw = Float64Array.from(residuals, (r, i) => r * (w ? w[i] : 1));
+  const rNorm = Math.sqrt(rss);
+  let maxCosine = 0;
+  for (let j = 0; j < np; j++) {
+    let dot = 0;
+    for (let i = 0; i < n; i++) dot += scaled[j][i] * rw[i];
+    if (rNorm > 0) maxCosine = Math.max(maxCosine, Math.abs(dot) / rNorm);
+  }
+  // A fit exact to working precision (residuals at the rounding level of the
+  // observations) has a noise-only residual direction and counts as stationary.
+  let yNorm2 = 0;
+  for (let i = 0; i < n; i++) yNorm2 += (problem.observations[i] * (w ? w[i] : 1)) ** 2;
+  const stationary = rNorm <= 1e-12 * Math.sqrt(yNorm2) || maxCosine < 1e-4;
   const { inverse, inverseCondition } = inverseNormalFromR(householderQr(scaled));
   const covariance = inverse.map((row, a) => row.map((v, b) => (s2 * v) / (colNorm[a] * colNorm[b])));
   const stdErrors = covariance.map((row, a) => Math.sqrt(row[a]));
@@ -292,7 +337,8 @@ function finishLeastSquares(
     jacobian: jacobianRows,
     iterations,
     restarts,
-    converged,
+    converged: converged && stationary,
+    maxGradientCosine: maxCosine,
     inverseCondition,
   };
 }

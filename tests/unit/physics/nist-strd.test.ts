@@ -46,6 +46,7 @@ describe.skipIf(!available)('NIST StRD nonlinear regression', () => {
             `stddev ${sDigits.toFixed(1).padStart(5)}  iters ${fit.iterations}`,
         );
         expect(pDigits, `${ds.name} ${label} parameter digits`).toBeGreaterThanOrEqual(6);
+        expect(fit.converged, `${ds.name} ${label} reports convergence`).toBe(true);
         // Certified std devs scale with sqrt(RSS). When the certified RSS is at the
         // rounding level of the data themselves (RSS / sum y^2 < 1e-20, i.e.
         // residuals ~1e-13 on values ~1), IEEE double cannot evaluate the residuals
