@@ -30,7 +30,8 @@ export const MARKS_CSV_COLUMNS: Record<MarksCsvKind, readonly [string, string, s
 const MAX_ERRORS = 20;
 const NUMBER = /^[+-]?(\d+(\.\d*)?|\.\d+)([eE][+-]?\d+)?$/;
 
-export type ParseResult<Row> = { ok: true; rows: Row[] } | { ok: false; errors: CsvLineError[] };
+/** `lines[i]` is the file line (1 = header) of `rows[i]`, for errors found after parsing. */
+export type ParseResult<Row> = { ok: true; rows: Row[]; lines: number[] } | { ok: false; errors: CsvLineError[] };
 
 export function parseMarksCsv(text: string, kind: 'pixel'): ParseResult<PixelCsvRow>;
 export function parseMarksCsv(text: string, kind: 'world'): ParseResult<WorldCsvRow>;
@@ -49,6 +50,7 @@ export function parseMarksCsv(text: string, kind: MarksCsvKind): ParseResult<Pix
   }
 
   const rows: (PixelCsvRow | WorldCsvRow)[] = [];
+  const rowLines: number[] = [];
   const seen = new Map<number, number>();
   for (let index = headerIndex + 1; index < lines.length && errors.length < MAX_ERRORS; index++) {
     const raw = lines[index].trim();
@@ -85,11 +87,12 @@ export function parseMarksCsv(text: string, kind: MarksCsvKind): ParseResult<Pix
       continue;
     }
     seen.set(key, line);
+    rowLines.push(line);
     rows.push(kind === 'pixel' ? { frame: key, uPx: values[1], vPx: values[2] } : { tS: key, xM: values[1], yM: values[2] });
   }
   if (errors.length) return { ok: false, errors };
   if (rows.length === 0) return { ok: false, errors: [{ line: headerIndex + 1, message: 'the file has a header but no marks' }] };
-  return { ok: true, rows };
+  return { ok: true, rows, lines: rowLines };
 }
 
 /** One error line per problem, for a problem document's detail. */

@@ -52,6 +52,48 @@ function median(values: number[]): number {
   return s.length % 2 ? s[m] : (s[m - 1] + s[m]) / 2;
 }
 
+/**
+ * Least-squares plane g = a + b·x + c·y through the border samples, refitted
+ * once without samples beyond 3 robust σ (the projectile may overlap the
+ * border when the click is off). σ is the MAD of the residuals, scaled.
+ */
+function robustPlane(samples: { i: number; j: number; g: number }[]): { a: number; b: number; c: number; sigma: number } {
+  let fit = fitPlane(samples);
+  let resid = samples.map((s) => s.g - (fit.a + fit.b * s.i + fit.c * s.j));
+  let sigma = MAD_TO_SIGMA * median(resid.map(Math.abs));
+  const kept = samples.filter((_, k) => Math.abs(resid[k]) <= 3 * Math.max(sigma, 0.5));
+  if (kept.length >= 8 && kept.length < samples.length) {
+    fit = fitPlane(kept);
+    resid = kept.map((s) => s.g - (fit.a + fit.b * s.i + fit.c * s.j));
+    sigma = MAD_TO_SIGMA * median(resid.map(Math.abs));
+  }
+  return { ...fit, sigma };
+}
+
+function fitPlane(samples: { i: number; j: number; g: number }[]): { a: number; b: number; c: number } {
+  // Normal equations of the 3-parameter fit, solved by Cramer's rule (3×3, well conditioned on a square border).
+  let n = 0, sx = 0, sy = 0, sxx = 0, syy = 0, sxy = 0, sg = 0, sxg = 0, syg = 0;
+  for (const { i: x, j: y, g } of samples) {
+    n++;
+    sx += x;
+    sy += y;
+    sxx += x * x;
+    syy += y * y;
+    sxy += x * y;
+    sg += g;
+    sxg += x * g;
+    syg += y * g;
+  }
+  const det3 = (m: number[]) => m[0] * (m[4] * m[8] - m[5] * m[7]) - m[1] * (m[3] * m[8] - m[5] * m[6]) + m[2] * (m[3] * m[7] - m[4] * m[6]);
+  const A = [n, sx, sy, sx, sxx, sxy, sy, sxy, syy];
+  const d = det3(A);
+  if (Math.abs(d) < 1e-9) return { a: sg / Math.max(1, n), b: 0, c: 0 };
+  const a = det3([sg, sx, sy, sxg, sxx, sxy, syg, sxy, syy]) / d;
+  const b = det3([n, sg, sy, sx, sxg, sxy, sy, syg, syy]) / d;
+  const c = det3([n, sx, sg, sx, sxx, sxg, sy, sxy, syg]) / d;
+  return { a, b, c };
+}
+
 interface Pass {
   u: number;
   v: number;
@@ -69,11 +111,21 @@ function centroidPass(image: SnapImage, cu: number, cv: number, half: number, da
   const j1 = Math.min(image.height - 1, cj + half);
   if (i1 - i0 < 4 || j1 - j0 < 4) return null;
 
-  const border: number[] = [];
-  for (let i = i0; i <= i1; i++) border.push(intensityAt(image, i, j0), intensityAt(image, i, j1));
-  for (let j = j0 + 1; j < j1; j++) border.push(intensityAt(image, i0, j), intensityAt(image, i1, j));
-  const background = median(border);
-  const sigma = Math.max(0.5, MAD_TO_SIGMA * median(border.map((b) => Math.abs(b - background))));
+  // Background: a plane fitted to the window's border pixels, so a gentle
+  // shading across the window (sky gradient, lit wall) does not pull the centroid.
+  const border: { i: number; j: number; g: number }[] = [];
+  const addBorder = (i: number, j: number) => border.push({ i: i + 0.5 - cu, j: j + 0.5 - cv, g: intensityAt(image, i, j) });
+  for (let i = i0; i <= i1; i++) {
+    addBorder(i, j0);
+    addBorder(i, j1);
+  }
+  for (let j = j0 + 1; j < j1; j++) {
+    addBorder(i0, j);
+    addBorder(i1, j);
+  }
+  const plane = robustPlane(border);
+  const backgroundAt = (i: number, j: number) => plane.a + plane.b * (i + 0.5 - cu) + plane.c * (j + 0.5 - cv);
+  const sigma = Math.max(0.5, plane.sigma);
   const threshold = noiseK * sigma;
 
   let sw = 0;
@@ -84,6 +136,7 @@ function centroidPass(image: SnapImage, cu: number, cv: number, half: number, da
   for (let j = j0; j <= j1; j++) {
     for (let i = i0; i <= i1; i++) {
       const raw = intensityAt(image, i, j);
+      const background = backgroundAt(i, j);
       const contrast = dark ? background - raw : raw - background;
       if (contrast > peak) peak = contrast;
       // Subtracting the threshold (not just cutting at it) keeps the weight continuous, so noise at the cut adds no jitter.

@@ -4,14 +4,14 @@ import { formatMarksCsv, parseMarksCsv } from '../../../shared/marking/marks-csv
 describe('marks CSV', () => {
   it('parses pixel files with CRLF, a BOM, spaces and blank lines', () => {
     const r = parseMarksCsv('\uFEFFframe, u_px ,v_px\r\n0,10.5,20\r\n\r\n 3 , 11.25 , -2e1\r\n', 'pixel');
-    expect(r).toEqual({ ok: true, rows: [{ frame: 0, uPx: 10.5, vPx: 20 }, { frame: 3, uPx: 11.25, vPx: -20 }] });
+    expect(r).toEqual({ ok: true, rows: [{ frame: 0, uPx: 10.5, vPx: 20 }, { frame: 3, uPx: 11.25, vPx: -20 }], lines: [2, 4] });
   });
 
   it('round-trips pixel and world rows through format → parse', () => {
     const pixel = [{ frame: 4, uPx: 101.125, vPx: 33.5 }, { frame: 5, uPx: 110, vPx: 30.875 }];
-    expect(parseMarksCsv(formatMarksCsv(pixel, 'pixel'), 'pixel')).toEqual({ ok: true, rows: pixel });
+    expect(parseMarksCsv(formatMarksCsv(pixel, 'pixel'), 'pixel')).toMatchObject({ ok: true, rows: pixel });
     const world = [{ tS: 0.004, xM: 0.123456, yM: 1.5 }, { tS: 0.008, xM: 0.25, yM: 1.498 }];
-    expect(parseMarksCsv(formatMarksCsv(world, 'world'), 'world')).toEqual({ ok: true, rows: world });
+    expect(parseMarksCsv(formatMarksCsv(world, 'world'), 'world')).toMatchObject({ ok: true, rows: world });
   });
 
   it('names the line of each bad value and stores nothing', () => {

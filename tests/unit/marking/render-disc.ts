@@ -13,6 +13,8 @@ export function renderDisc(opts: {
   foreground: number;
   channels?: 1 | 4;
   noise?: () => number;
+  /** Background shading, grey levels per pixel along u and v. */
+  slope?: { u: number; v: number };
 }): { width: number; height: number; channels: number; data: Uint8ClampedArray } {
   const { width, height, centreU, centreV, radiusPx, background, foreground } = opts;
   const channels = opts.channels ?? 1;
@@ -32,7 +34,8 @@ export function renderDisc(opts: {
         }
       }
       const f = inside / (n * n);
-      const value = background + (foreground - background) * f + (opts.noise ? opts.noise() : 0);
+      const local = background + (opts.slope ? opts.slope.u * (i + 0.5 - centreU) + opts.slope.v * (j + 0.5 - centreV) : 0);
+      const value = local + (foreground - local) * f + (opts.noise ? opts.noise() : 0);
       const k = (j * width + i) * channels;
       for (let c = 0; c < Math.min(channels, 3); c++) data[k + c] = Math.round(value);
       if (channels === 4) data[k + 3] = 255;

@@ -48,6 +48,20 @@ describe('sub-pixel snap on rendered discs with known centres', () => {
     expect(medianOf(errors)).toBeLessThan(0.3);
   });
 
+  it('shaded background (1.5 grey levels per px across the window) does not pull the centroid', () => {
+    const rand = seededRandom(6);
+    const errors: number[] = [];
+    for (let t = 0; t < 30; t++) {
+      const cu = 30 + rand() * 4;
+      const cv = 30 + rand() * 4;
+      const image = renderDisc({ width: 64, height: 64, centreU: cu, centreV: cv, radiusPx: 3, background: 150, foreground: 30, slope: { u: 1.5, v: -0.8 } });
+      const s = snapToCentroid(image, cu + rand() * 6 - 3, cv + rand() * 6 - 3, { windowPx: 21 });
+      expect(s).not.toBeNull();
+      errors.push(Math.hypot(s!.u - cu, s!.v - cv));
+    }
+    expect(medianOf(errors)).toBeLessThan(0.1);
+  });
+
   it('reads RGBA canvas pixels the same way', () => {
     const errors = snapErrors({ seed: 3, trials: 20, radiusPx: 4, noiseSigma: 0, channels: 4 });
     expect(medianOf(errors)).toBeLessThan(0.05);
