@@ -12,6 +12,7 @@ import { seriesRoutes } from './series';
 import { shotRoutes } from './shots';
 import { launcherRoutes } from './launchers';
 import { projectileRoutes } from './projectiles';
+import { clipRoutes } from './clips';
 
 /** Each resource declares its routes in its own file; this is the order they are mounted. */
 export function registerAllRoutes(api: RouteTable, deps: AppDeps): void {
@@ -27,4 +28,5 @@ export function registerAllRoutes(api: RouteTable, deps: AppDeps): void {
   shotRoutes(api.section('shots'), deps);
   launcherRoutes(api.section('launchers'), deps);
   projectileRoutes(api.section('projectiles'), deps);
+  clipRoutes(api.section('clips'), deps);
 }
