@@ -24,6 +24,8 @@ export const CAN = {
   read: ROLES,
   manageMembers: ['admin'],
   editShots: ['admin', 'analyst'],
+  /** Launchers and projectiles: the engineers who set presets maintain the kit records too. */
+  editEquipment: ['admin', 'analyst', 'engineer'],
   calibrate: ['admin', 'analyst'],
   mark: ['admin', 'analyst', 'tracker'],
   runFits: ['admin', 'analyst', 'engineer'],

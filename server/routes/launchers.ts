@@ -12,8 +12,8 @@ import { conflict, notFound } from '../http/problem';
 import type { RouteTable } from '../http/route-table';
 import { validate } from '../http/validate';
 
-// Who may edit launchers: analysts and admins for now; the presets work widens this to engineers.
-const EDIT_LAUNCHERS = CAN.editShots;
+// Engineers maintain launchers as well as analysts: presets and keep-out distances depend on them.
+const EDIT_LAUNCHERS = CAN.editEquipment;
 
 /** Launchers the team fires. A launcher still named by shots cannot be deleted (409), so no shot silently loses it. */
 export function launcherRoutes(api: RouteTable, { db }: AppDeps) {

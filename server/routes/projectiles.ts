@@ -12,8 +12,8 @@ import { conflict, notFound } from '../http/problem';
 import type { RouteTable } from '../http/route-table';
 import { validate } from '../http/validate';
 
-// Who may edit projectiles: analysts and admins for now; the presets work widens this to engineers.
-const EDIT_PROJECTILES = CAN.editShots;
+// Engineers maintain projectiles as well as analysts: presets and keep-out distances depend on them.
+const EDIT_PROJECTILES = CAN.editEquipment;
 
 /** Projectiles the team fires. A projectile still named by shots cannot be deleted (409), so no shot silently loses it. */
 export function projectileRoutes(api: RouteTable, { db }: AppDeps) {
