@@ -53,12 +53,16 @@ export function hashingDiskStorage(dir: string): StorageEngine {
   };
 }
 
-function megabytes(bytes: number): string {
-  return bytes >= 1024 ** 3 ? `${(bytes / 1024 ** 3).toFixed(bytes % 1024 ** 3 === 0 ? 0 : 1)} GiB` : `${Math.round(bytes / 1024 ** 2)} MiB`;
+function formatBytes(bytes: number): string {
+  const units: [number, string][] = [[1024 ** 3, 'GiB'], [1024 ** 2, 'MiB'], [1024, 'KiB']];
+  for (const [size, unit] of units) {
+    if (bytes >= size) return `${Number((bytes / size).toFixed(1))} ${unit}`;
+  }
+  return `${bytes} bytes`;
 }
 
 export function tooLarge(limitBytes: number): HttpProblem {
-  return new HttpProblem(413, 'File too large', `The clip is larger than the upload limit of ${megabytes(limitBytes)}. Trim it to the shot before uploading.`);
+  return new HttpProblem(413, 'File too large', `The clip is larger than the upload limit of ${formatBytes(limitBytes)}. Trim it to the shot before uploading.`);
 }
 
 /**
