@@ -1,0 +1,284 @@
+import { z } from 'zod';
+import { Uuid } from './common';
+
+// Design presets, their versions, forecasts and keep-out distances. SI units in
+// the API (Pa, m, m/s); air temperature in °C and humidity in %, as instruments read.
+
+export const PRESET_LAUNCHER_MODELS = ['constant-pressure', 'adiabatic'] as const;
+export type PresetLauncherModel = (typeof PRESET_LAUNCHER_MODELS)[number];
+
+export const LAUNCHER_MODEL_LABELS: Record<PresetLauncherModel, string> = {
+  'constant-pressure': 'constant pressure along the barrel',
+  adiabatic: 'adiabatic expansion of the chamber',
+};
+
+const finite = (message = 'must be a number') => z.number({ error: message }).refine(Number.isFinite, 'must be a finite number');
+const between = (min: number, max: number, unit: string) => finite().refine((v) => v >= min && v <= max, `must be between ${min} and ${max} ${unit}`);
+const Name = z.string().trim().min(1, 'is required').max(120, 'must be at most 120 characters');
+const Note = z.string().trim().max(2000, 'must be at most 2000 characters').default('');
+/** The factor the keep-out range is multiplied by; below 1 would shrink the worst case. */
+export const SafetyFactor = between(1, 10, '(a factor)');
+export const DEFAULT_SAFETY_FACTOR = 1.5;
+
+export const PresetParams = z.object({ teamId: Uuid, presetId: Uuid });
+export const PresetVersionParams = z.object({ teamId: Uuid, presetId: Uuid, version: z.coerce.number().int().min(1, 'must be 1 or more') });
+export const FitComparisonsParams = z.object({ teamId: Uuid, fitId: Uuid });
+
+export const PresetCreateBody = z
+  .object({
+    name: Name,
+    launcherId: Uuid,
+    projectileId: Uuid,
+    pressureMinPa: between(1e3, 1e8, 'Pa'),
+    pressureMaxPa: between(1e3, 1e8, 'Pa'),
+    /** A body from the handbook drag table; the first version starts from its value. */
+    handbookBody: z.string().trim().min(1).max(200).default('smooth sphere, subcritical'),
+    /** Energy efficiency assumed until fits say otherwise. */
+    efficiency: between(0.01, 1, '(a fraction)').default(0.6),
+    efficiencyStd: between(0.001, 1, '(a fraction)').default(0.15),
+    efficiencyNote: z.string().trim().max(400, 'must be at most 400 characters').default(''),
+    safetyFactor: SafetyFactor.default(DEFAULT_SAFETY_FACTOR),
+    note: Note,
+  })
+  .refine((v) => v.pressureMaxPa >= v.pressureMinPa, { message: 'must be at least the minimum pressure', path: ['pressureMaxPa'] });
+export type PresetCreateBody = z.input<typeof PresetCreateBody>;
+
+export const FitIdList = z.array(Uuid).min(1, 'choose at least one approved fit').max(200, 'at most 200 fits');
+
+export const PoolPreviewBody = z.object({ fitIds: FitIdList });
+export type PoolPreviewBody = z.input<typeof PoolPreviewBody>;
+
+export const PublishVersionBody = z.object({
+  fitIds: FitIdList,
+  note: Note,
+  safetyFactor: SafetyFactor.optional(),
+});
+export type PublishVersionBody = z.input<typeof PublishVersionBody>;
+
+export const RecordComparisonsBody = z.object({ fitIds: FitIdList });
+
+/** Shot conditions for a forecast. */
+export const ForecastBody = z.object({
+  presetId: Uuid,
+  version: z.number().int().min(1).optional(),
+  pressurePa: between(1e3, 1e8, 'Pa'),
+  elevationDeg: between(1, 89, '°'),
+  airTempC: between(-40, 60, '°C').default(15),
+  stationPressurePa: between(5e4, 1.1e5, 'Pa').default(101325),
+  relativeHumidityPct: between(0, 100, '%').default(50),
+  targetHeightM: between(-500, 500, 'm').default(0),
+  /** Along the line of fire, positive with the shot (tail wind). */
+  windMps: between(-30, 30, 'm/s').default(0),
+});
+export type ForecastBody = z.input<typeof ForecastBody>;
+
+export const PresetVersionQuery = z.object({ version: z.coerce.number().int().min(1).optional() });
+
+/** Keep-out conditions: thin air carries further, so the default is a hot, high day. */
+export const KeepOutQuery = PresetVersionQuery.extend({
+  airTempC: z.coerce.number().min(-40).max(60).default(35),
+  stationPressurePa: z.coerce.number().min(5e4).max(1.1e5).default(95000),
+  relativeHumidityPct: z.coerce.number().min(0).max(100).default(0),
+});
+
+// ── Response shapes ─────────────────────────────────────────────────────────
+
+export interface PooledSummary {
+  value: number;
+  stdErr: number;
+  stdErrFixed: number;
+  count: number;
+  cochranQ: number;
+  degreesOfFreedom: number;
+  iSquared: number;
+  pValue: number | null;
+  birgeRatio: number | null;
+  disagree: boolean;
+  verdict: string;
+}
+
+export interface PresetHeterogeneity {
+  dragCoefficient: PooledSummary | null;
+  efficiency: PooledSummary | null;
+}
+
+export interface PersonName {
+  id: string;
+  displayName: string;
+}
+
+export interface PresetVersionDiffRow {
+  field: string;
+  label: string;
+  before: number | string | null;
+  after: number | string | null;
+  /** after − before for numbers. */
+  change: number | null;
+  relativeChange: number | null;
+}
+
+export interface PresetVersionDiff {
+  fromVersion: number | null;
+  toVersion: number;
+  rows: PresetVersionDiffRow[];
+  fitsAdded: string[];
+  fitsRemoved: string[];
+}
+
+export interface PresetVersion {
+  id: string;
+  version: number;
+  dragCoefficient: number;
+  dragCoefficientStd: number;
+  efficiency: number;
+  efficiencyStd: number;
+  launcherModel: PresetLauncherModel;
+  dragSource: string;
+  efficiencySource: string;
+  pooledFitIds: string[];
+  heterogeneity: PresetHeterogeneity | null;
+  keepOutSafetyFactor: number;
+  note: string;
+  publishedBy: PersonName | null;
+  publishedAt: string;
+  diff: PresetVersionDiff;
+}
+
+export interface PresetSummary {
+  id: string;
+  name: string;
+  launcher: { id: string; name: string };
+  projectile: { id: string; name: string };
+  pressureMinPa: number;
+  pressureMaxPa: number;
+  createdAt: string;
+  latest: Omit<PresetVersion, 'diff'> | null;
+  versionCount: number;
+}
+
+export interface PresetDetail extends PresetSummary {
+  launcherRecord: {
+    boreM: number | null;
+    barrelLengthM: number | null;
+    chamberVolumeM3: number | null;
+    maxWorkingPressurePa: number | null;
+    valveType: string | null;
+  };
+  projectileRecord: { massKg: number; diameterM: number; shape: string | null; referenceAreaM2: number | null };
+  versions: PresetVersion[];
+}
+
+export interface FitCandidate {
+  fitId: string;
+  shotId: string;
+  shotLabel: string;
+  reviewedAt: string | null;
+  chamberPressurePa: number | null;
+  dragCoefficient: { value: number; stdErr: number } | null;
+  efficiency: { value: number; stdErr: number; measuredSpeedMps: number; modelSpeedMps: number } | null;
+  /** Why a number could not be taken from this fit. */
+  notes: string[];
+  usable: boolean;
+}
+
+export interface PoolPreview {
+  dragCoefficient: PooledSummary;
+  efficiency: PooledSummary | null;
+  fitIds: string[];
+  notes: string[];
+}
+
+export interface Band {
+  low: number;
+  median: number;
+  high: number;
+}
+
+export interface SweepRow {
+  elevationDeg: number;
+  rangeM: number | null;
+  apexHeightM: number;
+  timeOfFlightS: number | null;
+  impactSpeedMps: number | null;
+  vacuumRangeM: number | null;
+}
+
+export interface ForecastResponse {
+  preset: { id: string; name: string };
+  version: Pick<PresetVersion, 'version' | 'dragCoefficient' | 'dragCoefficientStd' | 'efficiency' | 'efficiencyStd' | 'launcherModel'>;
+  air: { densityKgM3: number; source: string };
+  inputs: z.output<typeof ForecastBody>;
+  modelSpeedMps: number;
+  muzzleSpeedMps: number;
+  dragK_perM: number;
+  withDrag: {
+    reachesTarget: boolean;
+    rangeM: number | null;
+    apexHeightM: number;
+    timeOfFlightS: number | null;
+    impactSpeedMps: number | null;
+    impactAngleDeg: number | null;
+  };
+  vacuum: { rangeM: number | null; apexHeightM: number; timeOfFlightS: number | null };
+  bestElevation: { angleDeg: number; rangeM: number; vacuumAngleDeg: 45; vacuumRangeM: number };
+  trajectories: { drag: { xM: number; yM: number }[]; vacuum: { xM: number; yM: number }[] };
+  sweep: SweepRow[];
+  band: {
+    method: string;
+    samples: number;
+    seed: number;
+    muzzleSpeedMps: Band;
+    rangeM: Band | null;
+    apexHeightM: Band;
+    timeOfFlightS: Band | null;
+  };
+  cautions: string[];
+}
+
+export interface KeepOutResponse {
+  presetId: string;
+  version: number;
+  maxWorkingPressurePa: number;
+  modelSpeedMps: number;
+  efficiencyUpper: number;
+  speedUpperMps: number;
+  dragCoefficientLower: number;
+  air: { densityKgM3: number; source: string };
+  bestElevationDeg: number;
+  maxRangeM: number;
+  safetyFactor: number;
+  keepOutM: number;
+  vacuumCeilingM: number;
+  vacuumAtUpperSpeedM: number;
+  method: string;
+  cautions: string[];
+}
+
+export interface MeasuredVsForecastRow {
+  fitId: string;
+  shotId: string;
+  shotLabel: string;
+  chamberPressurePa: number | null;
+  elevationDeg: number | null;
+  measuredSpeedMps: number;
+  measuredSpeedStdErr: number;
+  measuredFrom: 'muzzle' | 'first mark';
+  forecastSpeedMps: number | null;
+  tapeRangeM: number | null;
+  forecastRangeM: number | null;
+  note: string | null;
+}
+
+export interface MeasuredVsForecastResponse {
+  presetId: string;
+  version: number;
+  rows: MeasuredVsForecastRow[];
+}
+
+export interface FitPresetComparison {
+  presetId: string;
+  presetName: string;
+  version: number;
+  role: 'pooled' | 'compared';
+  comparedAt: string;
+}
