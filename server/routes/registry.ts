@@ -13,6 +13,7 @@ import { shotRoutes } from './shots';
 import { launcherRoutes } from './launchers';
 import { projectileRoutes } from './projectiles';
 import { clipRoutes } from './clips';
+import { fitRoutes } from './fits';
 
 /** Each resource declares its routes in its own file; this is the order they are mounted. */
 export function registerAllRoutes(api: RouteTable, deps: AppDeps): void {
@@ -29,4 +30,5 @@ export function registerAllRoutes(api: RouteTable, deps: AppDeps): void {
   launcherRoutes(api.section('launchers'), deps);
   projectileRoutes(api.section('projectiles'), deps);
   clipRoutes(api.section('clips'), deps);
+  fitRoutes(api.section('fits'), deps);
 }
