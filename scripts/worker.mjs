@@ -1,0 +1,41 @@
+// `npm run worker`: the extraction worker as a separate process. With
+// DATABASE_URL set it joins that database (another machine scaling out);
+// otherwise it uses the private PostgreSQL of `npm start` in .data/.
+// Builtins only until `npm ci` has run.
+import { spawn } from 'node:child_process';
+import path from 'node:path';
+import { fileURLToPath } from 'node:url';
+import { fail, log } from './lib/run.mjs';
+import { ensureSystemPackages } from './lib/system-packages.mjs';
+import { ensureNodeModules } from './lib/node-modules.mjs';
+import { startCluster } from './lib/pg-cluster.mjs';
+import { sessionSecret } from './lib/secrets.mjs';
+import { bin } from './lib/tool.mjs';
+
+const root = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '..');
+const dataDir = path.join(root, '.data');
+
+async function main() {
+  await ensureSystemPackages(['postgresql', 'ffmpeg']);
+  await ensureNodeModules(root);
+  let databaseUrl = process.env.DATABASE_URL;
+  if (!databaseUrl) {
+    const cluster = await startCluster(dataDir, { preferredPort: 54329 });
+    databaseUrl = cluster.url('arcbench');
+    // The cluster is shared with `npm start`, so the worker leaves it running when it stops.
+    log(`Using PostgreSQL on 127.0.0.1:${cluster.port} (data in .data/pg)`);
+  }
+  const env = {
+    ...process.env,
+    DATABASE_URL: databaseUrl,
+    SESSION_SECRET: process.env.SESSION_SECRET ?? sessionSecret(dataDir),
+    STORAGE_DIR: process.env.STORAGE_DIR ?? path.join(dataDir, 'storage'),
+  };
+  const worker = spawn(bin(root, 'tsx'), ['server/worker.ts'], { cwd: root, env, stdio: 'inherit' });
+  const forward = (signal) => worker.exitCode === null && worker.kill(signal);
+  process.on('SIGINT', () => forward('SIGTERM'));
+  process.on('SIGTERM', () => forward('SIGTERM'));
+  worker.on('exit', (code) => process.exit(code ?? 1));
+}
+
+main().catch((err) => fail(err.message));
