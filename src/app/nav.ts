@@ -15,6 +15,10 @@ export interface NavEntry {
 // team's work: records → clips → marking → fits → presets → team admin).
 export const NAV_ENTRIES: NavEntry[] = [
   { label: 'Team home', to: (teamId) => `/t/${teamId}`, end: true },
+  { label: 'Shots', to: (teamId) => `/t/${teamId}/shots` },
+  { label: 'Series', to: (teamId) => `/t/${teamId}/series` },
+  { label: 'Launchers & projectiles', to: (teamId) => `/t/${teamId}/kit` },
+  { label: 'Shot results', to: (teamId) => `/t/${teamId}/results` },
   { label: 'Members', to: (teamId) => `/t/${teamId}/members` },
   { label: 'Outbox', to: (teamId) => `/t/${teamId}/outbox`, roles: CAN.manageMembers },
 ];

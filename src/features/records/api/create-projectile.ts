@@ -1,0 +1,16 @@
+import { useMutation, useQueryClient } from '@tanstack/react-query';
+import type { Projectile, ProjectileCreateBody } from '@shared/schemas/records';
+import { apiPost } from '@/lib/api-client';
+import { recordKeys, teamPath } from './keys';
+
+export function createProjectile(teamId: string, body: ProjectileCreateBody): Promise<Projectile> {
+  return apiPost<Projectile>(teamPath(teamId, '/projectiles'), body);
+}
+
+export function useCreateProjectile(teamId: string) {
+  const client = useQueryClient();
+  return useMutation({
+    mutationFn: (body: ProjectileCreateBody) => createProjectile(teamId, body),
+    onSuccess: () => client.invalidateQueries({ queryKey: recordKeys.all(teamId) }),
+  });
+}

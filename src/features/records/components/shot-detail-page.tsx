@@ -1,0 +1,89 @@
+import { useState, type ReactNode } from 'react';
+import { useNavigate, useParams } from 'react-router';
+import { CAN } from '@shared/roles';
+import { Button } from '@/components/ui/button';
+import { ButtonLink } from '@/components/ui/button-link';
+import { Card } from '@/components/ui/card';
+import { ConfirmDialog } from '@/components/ui/dialog';
+import { FormError } from '@/components/ui/form-error';
+import { KeyValueList } from '@/components/ui/key-value-list';
+import { PageHeader } from '@/components/ui/page-header';
+import { LoadingBlock } from '@/components/ui/spinner';
+import { formatDateTime, formatQuantity } from '@/lib/format';
+import { useCurrentTeam } from '@/lib/use-current-team';
+import { useDeleteShot } from '../api/delete-shot';
+import { useShot } from '../api/get-shot';
+
+export interface ShotDetailPageProps {
+  /**
+   * The clip panel, supplied by the router from the clips feature (features do
+   * not import each other, so the page leaves a slot for it).
+   */
+  clipPanel: (shot: { teamId: string; shotId: string; canEdit: boolean }) => ReactNode;
+}
+
+export function ShotDetailPage({ clipPanel }: ShotDetailPageProps) {
+  const { teamId, can } = useCurrentTeam();
+  const { shotId = '' } = useParams();
+  const navigate = useNavigate();
+  const shot = useShot(teamId, shotId);
+  const remove = useDeleteShot(teamId);
+  const [confirming, setConfirming] = useState(false);
+  const canEdit = can(CAN.editShots);
+
+  if (shot.isLoading) return <LoadingBlock label="Loading the shot…" />;
+  if (!shot.data) return <FormError error={shot.error} />;
+  const s = shot.data;
+
+  return (
+    <div className="flex flex-col gap-4">
+      <PageHeader
+        eyebrow={s.seriesName}
+        title={`Shot ${s.label}`}
+        subtitle={`Recorded ${formatDateTime(s.createdAt)}`}
+        actions={
+          canEdit && (
+            <>
+              <ButtonLink to={`/t/${teamId}/shots/${shotId}/edit`}>Edit shot</ButtonLink>
+              <Button variant="ghost" onClick={() => setConfirming(true)}>
+                Delete
+              </Button>
+            </>
+          )
+        }
+      />
+      <div className="grid gap-4 lg:grid-cols-[minmax(0,20rem)_minmax(0,1fr)]">
+        <Card title="Conditions" subtitle="As recorded at the launcher">
+          <KeyValueList
+            items={[
+              { label: 'Launcher', value: s.launcherName ?? '—' },
+              { label: 'Projectile', value: s.projectileName ?? '—' },
+              { label: 'Chamber pressure', value: formatQuantity(s.chamberPressurePa === null ? null : s.chamberPressurePa / 1000, 'kPa', { decimals: 0 }), numeric: true },
+              { label: 'Elevation setting', value: formatQuantity(s.elevationDeg, '°', { decimals: 1 }), numeric: true },
+              { label: 'Air temperature', value: formatQuantity(s.airTempC, '°C', { decimals: 1 }), numeric: true },
+              { label: 'Station pressure', value: formatQuantity(s.stationPressurePa === null ? null : s.stationPressurePa / 100, 'hPa', { decimals: 1 }), numeric: true },
+              { label: 'Relative humidity', value: formatQuantity(s.relativeHumidityPct, '%', { decimals: 0 }), numeric: true },
+              { label: 'Tape-measured range', value: formatQuantity(s.tapeRangeM, 'm', { decimals: 2 }), numeric: true },
+            ]}
+          />
+          {s.notes && <p className="mt-3 text-body whitespace-pre-line text-ink-soft">{s.notes}</p>}
+        </Card>
+        <div className="min-w-0">{clipPanel({ teamId, shotId, canEdit })}</div>
+      </div>
+      <ConfirmDialog
+        open={confirming}
+        title={`Delete shot ${s.label}?`}
+        description="The shot record goes. A shot that still has clips cannot be deleted; delete its clips first."
+        confirmLabel="Delete shot"
+        busy={remove.isPending}
+        onClose={() => {
+          setConfirming(false);
+          remove.reset();
+        }}
+        onConfirm={() => remove.mutate(shotId, { onSuccess: () => navigate(`/t/${teamId}/shots`) })}
+      >
+        <FormError error={remove.error} />
+      </ConfirmDialog>
+    </div>
+  );
+}
