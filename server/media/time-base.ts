@@ -91,7 +91,12 @@ export function analyseTimeBase(input: TimeBaseInput): TimeBase {
   // Constant rate: count frame slots on the nominal tick (so a dropped frame
   // leaves its slot empty) and time them at the capture rate. Variable rate:
   // timestamps are all there is; scale playback time by playback/capture.
-  const tickFps = input.baseFps > 0 && Math.abs(input.baseFps * m - 1) < 0.01 ? input.baseFps : 1 / m;
+  // The nominal tick: the stated base rate when the intervals agree with it
+  // (within the steady band), else the mean of the ordinary intervals.
+  const ordinary = positive.filter((d) => d > m * DUPLICATE_FACTOR && d <= m * DROP_FACTOR);
+  const meanInterval = ordinary.length > 0 ? ordinary.reduce((a, b) => a + b, 0) / ordinary.length : m;
+  const tickFps =
+    input.baseFps > 0 && Math.abs(1 / input.baseFps - meanInterval) <= Math.max(STEADY_FRACTION * meanInterval, MS_ROUNDING_S) ? input.baseFps : 1 / meanInterval;
   const t0 = n > 0 ? ptsS[0] : 0;
   const playbackFps = input.containerFps > 0 ? input.containerFps : tickFps;
   // A variable-rate file's average rate is not a clock: jitter and gaps pull it
@@ -109,7 +114,6 @@ export function analyseTimeBase(input: TimeBaseInput): TimeBase {
   const rate = variableFrameRate ? (vfrScale === 1 ? null : rateWarning(playbackFps, captureFps)) : rateWarning(tickFps, captureFps);
   if (rate) warnings.push(rate);
   if (variableFrameRate) {
-    const ordinary = positive.filter((d) => d <= m * DROP_FACTOR);
     const lo = 1 / Math.max(...ordinary);
     const hi = 1 / Math.min(...ordinary);
     warnings.push({
