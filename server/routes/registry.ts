@@ -13,6 +13,10 @@ import { shotRoutes } from './shots';
 import { launcherRoutes } from './launchers';
 import { projectileRoutes } from './projectiles';
 import { clipRoutes } from './clips';
+import { calibrationRoutes } from './calibrations';
+import { trackRoutes } from './tracks';
+import { markRoutes } from './marks';
+import { frameSnapRoutes } from './frame-snap';
 import { fitRoutes } from './fits';
 
 /** Each resource declares its routes in its own file; this is the order they are mounted. */
@@ -30,5 +34,9 @@ export function registerAllRoutes(api: RouteTable, deps: AppDeps): void {
   launcherRoutes(api.section('launchers'), deps);
   projectileRoutes(api.section('projectiles'), deps);
   clipRoutes(api.section('clips'), deps);
+  calibrationRoutes(api.section('calibrations'), deps);
+  trackRoutes(api.section('tracks'), deps);
+  markRoutes(api.section('marks'), deps);
+  frameSnapRoutes(api.section('marks'), deps);
   fitRoutes(api.section('fits'), deps);
 }
