@@ -1,0 +1,163 @@
+// Frame-step latency of the workspace in headless chromium: keydown (→) to
+// the new frame drawn on the frame layer, over 200 steps between frames that
+// are already decoded in the frame cache. Target: p95 <= 16 ms (one frame at
+// 60 Hz). Baseline in the same run: a keydown that changes nothing, to the
+// next animation frame — the browser's own floor for "react to a key".
+// Run alone: npx tsx scripts/bench-workspace.ts (needs DATABASE_URL and a
+// built client, as `npm run bench` provides).
+import { spawn, type ChildProcess } from 'node:child_process';
+import net from 'node:net';
+import path from 'node:path';
+import { pathToFileURL } from 'node:url';
+import type { Page } from 'playwright-core';
+import { DEMO_PASSWORD, demoPerson } from '../server/seed/demo-people';
+import { launchBrowser, signIn } from '../tests/support/browser';
+import { demoTeamId, uploadGeneratedClip } from '../tests/support/generated-clip-upload';
+
+const STEPS = 200;
+const TARGET_P95_MS = 16;
+const CLIP_FRAMES = 60; // fits the frame cache (64) whole, so every step lands on a decoded frame
+
+function quantile(values: number[], q: number): number {
+  const s = [...values].sort((a, b) => a - b);
+  const i = (s.length - 1) * q;
+  const lo = Math.floor(i);
+  return s[lo] + (s[Math.min(lo + 1, s.length - 1)] - s[lo]) * (i - lo);
+}
+
+function freePort(): Promise<number> {
+  return new Promise((resolve, reject) => {
+    const srv = net.createServer();
+    srv.on('error', reject);
+    srv.listen(0, '127.0.0.1', () => {
+      const { port } = srv.address() as net.AddressInfo;
+      srv.close(() => resolve(port));
+    });
+  });
+}
+
+async function startServer(): Promise<{ url: string; stop: () => Promise<void> }> {
+  if (!process.env.DATABASE_URL) throw new Error('DATABASE_URL is not set: run through `npm run bench`, which starts a throwaway database.');
+  const root = path.resolve(import.meta.dirname, '..');
+  const server: ChildProcess = spawn(path.join(root, 'node_modules/.bin/tsx'), ['server/index.ts'], {
+    cwd: root,
+    env: { ...process.env, PORT: String(await freePort()), HOST: '127.0.0.1', SMTP_URL: '' },
+    stdio: ['ignore', 'pipe', 'pipe', 'ipc'],
+  });
+  let output = '';
+  server.stdout?.on('data', (d) => (output += d));
+  server.stderr?.on('data', (d) => (output += d));
+  const url = await new Promise<string>((resolve, reject) => {
+    const timer = setTimeout(() => reject(new Error(`server did not start in 60 s:\n${output}`)), 60_000);
+    server.on('message', (msg: { ready?: boolean; url?: string }) => {
+      if (msg.ready && msg.url) {
+        clearTimeout(timer);
+        resolve(msg.url);
+      }
+    });
+    server.on('exit', (code) => reject(new Error(`server exited (${code}):\n${output}`)));
+  });
+  return {
+    url,
+    stop: async () => {
+      if (server.exitCode === null) {
+        server.kill('SIGTERM');
+        await new Promise((r) => server.once('exit', r));
+      }
+    },
+  };
+}
+
+const shownFrame = (page: Page) => page.evaluate(() => document.querySelector<HTMLElement>('[data-testid="frame-stage"]')?.dataset.shownFrame ?? '');
+
+async function waitShown(page: Page, frameNumber: number) {
+  await page.waitForFunction((n) => document.querySelector<HTMLElement>('[data-testid="frame-stage"]')?.dataset.shownFrame === String(n), frameNumber);
+}
+
+export async function benchWorkspace(baseUrl?: string): Promise<string> {
+  const server = baseUrl ? null : await startServer();
+  const url = baseUrl ?? server!.url;
+  const browser = await launchBrowser();
+  try {
+    const context = await browser.newContext({ viewport: { width: 1440, height: 1000 } });
+    const page = await context.newPage();
+    await signIn(page, url, demoPerson('analyst').email, DEMO_PASSWORD);
+    await page.waitForURL((u) => !u.pathname.startsWith('/sign-in'));
+    const teamId = await demoTeamId(page.request, url);
+    const { clipId } = await uploadGeneratedClip(page.request, url, teamId, 'clean', { frameCount: CLIP_FRAMES, seed: 23 });
+    await page.goto(`${url}/t/${teamId}/clips/${clipId}/workspace`);
+    await waitShown(page, 0);
+    await page.locator('[data-testid="frame-stage"]').focus();
+
+    // Warm the cache: walk every frame once, waiting until each is on screen.
+    for (let n = 1; n < CLIP_FRAMES; n++) {
+      await page.keyboard.press('ArrowRight');
+      await waitShown(page, n);
+    }
+    await page.keyboard.press('Home'); // no marks yet: stays; go back explicitly
+    for (let n = CLIP_FRAMES - 2; n >= 0; n--) {
+      await page.keyboard.press('ArrowLeft');
+      await waitShown(page, n);
+    }
+
+    // Measured steps: back and forth inside the clip, every frame decoded.
+    await page.evaluate(() => {
+      window.__arcbenchFrameTimings = { pendingKeyAt: null, samples: [] };
+    });
+    let frame = Number(await shownFrame(page));
+    let direction = 1;
+    for (let i = 0; i < STEPS; i++) {
+      if (frame + direction < 0 || frame + direction >= CLIP_FRAMES) direction = -direction;
+      frame += direction;
+      await page.keyboard.press(direction > 0 ? 'ArrowRight' : 'ArrowLeft');
+      await page.waitForFunction((count) => (window.__arcbenchFrameTimings?.samples.length ?? 0) >= count, i + 1);
+    }
+    const samples = await page.evaluate(() => window.__arcbenchFrameTimings!.samples);
+    const missed = samples.filter((s, i) => i > 0 && s.frameNumber === samples[i - 1].frameNumber).length;
+
+    // Baseline: a key the workspace ignores, keydown to the next animation frame.
+    const baseline = await page.evaluate(async (steps) => {
+      const out: number[] = [];
+      for (let i = 0; i < steps; i++) {
+        const t = await new Promise<number>((resolve) => {
+          const onKey = (e: KeyboardEvent) => {
+            window.removeEventListener('keydown', onKey);
+            requestAnimationFrame(() => resolve(performance.now() - e.timeStamp));
+          };
+          window.addEventListener('keydown', onKey);
+          window.dispatchEvent(new KeyboardEvent('keydown', { key: 'F13' }));
+        });
+        out.push(t);
+      }
+      return out;
+    }, STEPS);
+
+    const drawn = samples.map((s) => s.drawnAt - s.keyAt);
+    const painted = samples.map((s) => s.paintedAt - s.keyAt);
+    const f = (v: number) => v.toFixed(2).padStart(7);
+    const p95 = quantile(drawn, 0.95);
+    const lines = [
+      `frame step over ${samples.length} steps on decoded frames (headless chromium, ${CLIP_FRAMES}-frame 640x360 clip)`,
+      `  keydown → new frame drawn        p50 ${f(quantile(drawn, 0.5))} ms   p95 ${f(p95)} ms   (target p95 ≤ ${TARGET_P95_MS} ms: ${p95 <= TARGET_P95_MS ? 'met' : 'MISSED'})`,
+      `  keydown → next animation frame   p50 ${f(quantile(painted, 0.5))} ms   p95 ${f(quantile(painted, 0.95))} ms`,
+      `  baseline: keydown → animation frame, nothing changed   p50 ${f(quantile(baseline, 0.5))} ms   p95 ${f(quantile(baseline, 0.95))} ms`,
+      `  ratio (step to paint / baseline, p50): ${(quantile(painted, 0.5) / quantile(baseline, 0.5)).toFixed(2)}`,
+    ];
+    if (missed) lines.push(`  note: ${missed} samples repeated a frame number`);
+    await context.close();
+    return lines.join('\n');
+  } finally {
+    await browser.close();
+    await server?.stop();
+  }
+}
+
+if (import.meta.url === pathToFileURL(process.argv[1] ?? '').href) {
+  benchWorkspace(process.argv[2]).then(
+    (report) => console.log(report),
+    (err) => {
+      console.error(err);
+      process.exit(1);
+    },
+  );
+}

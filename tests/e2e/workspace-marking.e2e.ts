@@ -1,0 +1,160 @@
+// The calibrate-and-mark workspace end to end, in Debian's chromium against
+// the real server, database and ffmpeg: an analyst sets the scale and the
+// origin on a generated clip, a tracker places ten marks by clicking, and
+// after a reload every mark is in the ledger with the right world position.
+//
+// Expected world positions are computed here from the clicked pixels with
+// shared/geometry (the same transform the server uses), and checked against
+// the clip generator's truth (its known scale and launch point) within the
+// click's rounding to screen pixels.
+import { afterAll, beforeAll, expect, inject, it } from 'vitest';
+import type { Browser, BrowserContext, Page } from 'playwright-core';
+import { buildCalibrationTransform } from '../../shared/geometry/calibration-transform';
+import type { PixelPoint } from '../../shared/geometry/points';
+import { DEMO_PASSWORD, demoPerson } from '../../server/seed/demo-people';
+import { launchBrowser, screenshot, signIn } from '../support/browser';
+import { demoTeamId, jsonOf as json, uploadGeneratedClip } from '../support/generated-clip-upload';
+
+let browser: Browser;
+beforeAll(async () => {
+  browser = await launchBrowser();
+});
+afterAll(() => browser?.close());
+
+async function signedInContext(email: string): Promise<{ context: BrowserContext; page: Page }> {
+  const context = await browser.newContext({ viewport: { width: 1440, height: 1000 } });
+  const page = await context.newPage();
+  await signIn(page, inject('baseUrl'), email, DEMO_PASSWORD);
+  await page.waitForURL((url) => !url.pathname.startsWith('/sign-in'));
+  return { context, page };
+}
+
+interface StageGeometry {
+  left: number;
+  top: number;
+  zoom: number;
+  panX: number;
+  panY: number;
+}
+
+async function stageGeometry(page: Page): Promise<StageGeometry> {
+  return page.evaluate(() => {
+    const stage = document.querySelector<HTMLElement>('[data-testid="frame-stage"]')!;
+    const content = stage.querySelector<HTMLElement>('.konvajs-content')!.getBoundingClientRect();
+    return { left: content.left, top: content.top, zoom: Number(stage.dataset.zoom), panX: Number(stage.dataset.panX), panY: Number(stage.dataset.panY) };
+  });
+}
+
+/**
+ * Clicks as near as the screen allows to a frame pixel and returns the frame
+ * pixel actually clicked (mouse positions are whole CSS pixels).
+ */
+async function clickFramePixel(page: Page, p: PixelPoint): Promise<PixelPoint> {
+  const g = await stageGeometry(page);
+  const x = Math.round(g.left + g.panX + p.u * g.zoom);
+  const y = Math.round(g.top + g.panY + p.v * g.zoom);
+  await page.mouse.move(x, y);
+  await page.mouse.down();
+  await page.mouse.up();
+  return { u: (x - g.left - g.panX) / g.zoom, v: (y - g.top - g.panY) / g.zoom };
+}
+
+async function waitForShownFrame(page: Page, frameNumber: number) {
+  await page.waitForFunction(
+    (n) => document.querySelector<HTMLElement>('[data-testid="frame-stage"]')?.dataset.shownFrame === String(n),
+    frameNumber,
+  );
+}
+
+it('an analyst calibrates, a tracker marks ten frames, and after a reload the ledger holds them in metres', async () => {
+  const baseUrl = inject('baseUrl');
+  const analyst = await signedInContext(demoPerson('analyst').email);
+  const teamId = await demoTeamId(analyst.page.request, baseUrl);
+  const { clipId, truth } = await uploadGeneratedClip(analyst.page.request, baseUrl, teamId, 'clean', { frameCount: 30, seed: 29 });
+  const workspaceUrl = `${baseUrl}/t/${teamId}/clips/${clipId}/workspace`;
+
+  // ---- analyst: scale reference by its two ends and its length, then the origin
+  const a = analyst.page;
+  await a.goto(workspaceUrl);
+  await waitForShownFrame(a, 0);
+  await a.getByRole('button', { name: /^Ruler/ }).click();
+  const p1 = await clickFramePixel(a, truth.scaleReference.p1);
+  const p2 = await clickFramePixel(a, truth.scaleReference.p2);
+  const lengthDialog = a.getByRole('dialog', { name: 'Length of the scale reference' });
+  await lengthDialog.getByLabel('Length').fill(String(truth.scaleReference.lengthM));
+  await lengthDialog.getByLabel('Tolerance (±)').fill('1');
+  await lengthDialog.getByRole('button', { name: 'Set scale' }).click();
+  await a.getByRole('button', { name: /^Origin pin/ }).click();
+  const origin = await clickFramePixel(a, truth.originPx);
+  await a.getByRole('button', { name: 'Save as version 1' }).click();
+  await a.getByText('Saved version 1').waitFor();
+  await screenshot(a, 'workspace-calibrated');
+  await analyst.context.close();
+
+  // The transform the ledger must agree with, from the pixels actually clicked.
+  const transform = buildCalibrationTransform({
+    scale: { p1, p2, lengthM: truth.scaleReference.lengthM, lengthTolM: 0.001, endpointSigmaPx: 0.5 },
+    origin,
+    level: { kind: 'angle', rollDeg: 0 },
+    downrange: 'right',
+    plane: null,
+  });
+
+  // ---- tracker: ten clicks on ten successive frames (Place moves on by itself)
+  const tracker = await signedInContext(demoPerson('tracker').email);
+  const t = tracker.page;
+  await t.goto(workspaceUrl);
+  await waitForShownFrame(t, 0);
+  // Compare against exactly what was clicked, so the snap stays off here (its accuracy is tested on its own).
+  await t.getByLabel(/Snap to centre/).uncheck();
+  const clicked: { frameNumber: number; p: PixelPoint }[] = [];
+  for (const f of truth.frames.slice(0, 10)) {
+    await waitForShownFrame(t, f.frameNumber);
+    clicked.push({ frameNumber: f.frameNumber, p: await clickFramePixel(t, { u: f.uPx, v: f.vPx }) });
+  }
+  await t.getByTestId('save-status').getByText('All marks saved.').waitFor();
+  await screenshot(t, 'workspace-marked');
+
+  await t.reload();
+  await waitForShownFrame(t, 0);
+  const ledger = t.getByRole('table', { name: 'Marks ledger' });
+  await ledger.locator('tbody tr').nth(9).waitFor();
+  const rows = await ledger.locator('tbody tr').evaluateAll((trs) =>
+    trs.map((tr) => Array.from(tr.querySelectorAll('td')).map((td) => td.textContent!.trim().replace('\u2212', '-'))),
+  );
+  expect(rows).toHaveLength(10);
+
+  for (const [i, c] of clicked.entries()) {
+    const [frame, , u, v, x, y, how] = rows[i];
+    expect(Number(frame)).toBe(c.frameNumber);
+    expect(Number(u)).toBeCloseTo(c.p.u, 2);
+    expect(Number(v)).toBeCloseTo(c.p.v, 2);
+    const w = transform.imageToWorld(c.p);
+    // The ledger prints metres to 4 decimals.
+    expect(Math.abs(Number(x) - w.x)).toBeLessThanOrEqual(0.00005 + 1e-9);
+    expect(Math.abs(Number(y) - w.y)).toBeLessThanOrEqual(0.00005 + 1e-9);
+    expect(how).toBe('placed');
+
+    // Against the generator's truth: world = (pixel - launch point) / (its pixels per metre), y up.
+    // Clicks land within half a screen pixel of the truth pixel; allow one screen pixel plus the scale clicks' share.
+    const truthFrame = truth.frames[i];
+    const xTruth = (truthFrame.uPx - truth.originPx.u) / truth.pixelsPerMetre;
+    const yTruth = (truth.originPx.v - truthFrame.vPx) / truth.pixelsPerMetre;
+    expect(Math.abs(Number(x) - xTruth)).toBeLessThan(0.02);
+    expect(Math.abs(Number(y) - yTruth)).toBeLessThan(0.02);
+  }
+
+  // The server computes the same world coordinates from the saved calibration.
+  const tracks = await json<{ tracks: { id: string; markCount: number }[] }>(await t.request.get(`${baseUrl}/api/teams/${teamId}/clips/${clipId}/tracks`));
+  expect(tracks.tracks.map((tr) => tr.markCount)).toEqual([10]);
+  const stored = await json<{ marks: { frameNumber: number; xM: number; yM: number }[] }>(
+    await t.request.get(`${baseUrl}/api/teams/${teamId}/tracks/${tracks.tracks[0].id}/marks`),
+  );
+  for (const [i, m] of stored.marks.entries()) {
+    const w = transform.imageToWorld(clicked[i].p);
+    expect(m.xM).toBeCloseTo(w.x, 6);
+    expect(m.yM).toBeCloseTo(w.y, 6);
+  }
+  await screenshot(t, 'workspace-after-reload');
+  await tracker.context.close();
+});
