@@ -33,8 +33,10 @@ export interface Dp45Options {
 export interface Dp45Sampler {
   /** Output times, sorted ascending, inside [t0, tEnd]. */
   times: ArrayLike<number>;
-  /** Receives dim values per time, row-major. */
+  /** Receives `components` values per time, row-major. */
   out: Float64Array;
+  /** Number of leading state components to sample (default: all). A fit needs only positions. */
+  components?: number;
 }
 
 export interface Dp45Event {
@@ -90,9 +92,9 @@ export class Dp45Workspace {
 }
 
 /** Evaluate the dense-output polynomial of the last step at fraction theta into out. */
-function dense(ws: Dp45Workspace, theta: number, out: Float64Array, offset: number): void {
+function dense(ws: Dp45Workspace, theta: number, out: Float64Array, offset: number, components: number): void {
   const t1 = 1 - theta;
-  for (let i = 0; i < ws.dim; i++) {
+  for (let i = 0; i < components; i++) {
     out[offset + i] = ws.r1[i] + theta * (ws.r2[i] + t1 * (ws.r3[i] + theta * (ws.r4[i] + t1 * ws.r5[i])));
   }
 }
@@ -135,9 +137,10 @@ export function integrateDp45(
   let sampleIndex = 0;
   const times = sampler?.times;
   const nTimes = times ? times.length : 0;
+  const comps = sampler?.components ?? dim;
   // Samples exactly at t0 are taken from the initial state.
   while (times && sampleIndex < nTimes && times[sampleIndex] <= t0) {
-    for (let i = 0; i < dim; i++) sampler!.out[sampleIndex * dim + i] = y[i];
+    for (let i = 0; i < comps; i++) sampler!.out[sampleIndex * comps + i] = y[i];
     sampleIndex++;
   }
   let gOld = event ? event.fn(t, y) : 0;
@@ -218,13 +221,13 @@ export function integrateDp45(
 
     if (times) {
       while (sampleIndex < nTimes && times[sampleIndex] <= tStop) {
-        dense(ws, (times[sampleIndex] - t) / h, sampler!.out, sampleIndex * dim);
+        dense(ws, (times[sampleIndex] - t) / h, sampler!.out, sampleIndex * comps, comps);
         sampleIndex++;
       }
     }
 
     if (eventFound) {
-      dense(ws, (tStop - t) / h, ws.yDense, 0);
+      dense(ws, (tStop - t) / h, ws.yDense, 0, dim);
       for (let i = 0; i < dim; i++) y[i] = ws.yDense[i];
       t = tStop;
       break;
@@ -260,7 +263,7 @@ function locateEvent(ws: Dp45Workspace, event: Dp45Event, t: number, h: number, 
   let side = 0;
   for (let iter = 0; iter < 100; iter++) {
     const c = (a * fb - b * fa) / (fb - fa);
-    dense(ws, c, ws.yDense, 0);
+    dense(ws, c, ws.yDense, 0, ws.dim);
     const fc = event.fn(t + c * h, ws.yDense);
     if (fc === 0 || Math.abs(b - a) < 1e-15) return t + c * h;
     if ((fc > 0) === (fb > 0)) {

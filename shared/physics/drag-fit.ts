@@ -97,7 +97,7 @@ export function fitQuadraticDrag(marks: Mark[], options: DragFitOptions): DragFi
       start: [sx0, sy0, speed0, Math.atan2(svy, svx), 0],
       typicalMagnitude: typical,
     },
-    { maxIterations: 400, burstIterations: 6, rssRelTol: 1e-12, paramRelTol: 1e-9 },
+    { maxIterations: 400, burstIterations: 3, rssRelTol: 1e-12, paramRelTol: 1e-9 },
   );
 
   return {

@@ -2,7 +2,7 @@
 //   a = -k |v - w| (v - w) - g y_hat,   k = rho Cd A / (2 m)
 // with an optional steady horizontal wind w. State is [x, y, vx, vy] in m and m/s.
 import { STANDARD_GRAVITY_MPS2 } from './constants';
-import { Dp45Workspace, integrateDp45, type Derivative, type Dp45Options } from './dp45';
+import { Dp45Workspace, integrateDp45, type Derivative, type Dp45Options, type Dp45Sampler } from './dp45';
 
 export interface FlightModel {
   /** Drag constant k = rho Cd A / (2 m), per metre. Zero gives vacuum flight. */
@@ -141,11 +141,11 @@ export class PositionSampler {
   private readonly tEnd: number;
   private readonly constants = new Float64Array(3);
   private readonly options: Dp45Options;
-  private readonly sampler: { times: Float64Array; out: Float64Array };
+  private readonly sampler: Dp45Sampler;
   constructor(private readonly timesS: Float64Array, tol = DEFAULT_TOLERANCES) {
-    this.out = new Float64Array(timesS.length * 4);
+    this.out = new Float64Array(timesS.length * 2);
     this.options = { rtol: tol.rtol, atol: tol.atol, replaySteps: undefined, recordSteps: true };
-    this.sampler = { times: timesS, out: this.out };
+    this.sampler = { times: timesS, out: this.out, components: 2 };
     this.t0 = timesS[0];
     this.tEnd = timesS[timesS.length - 1];
   }
@@ -162,8 +162,8 @@ export class PositionSampler {
     const run = integrateDp45(flightRhs, this.t0, this.y0, this.tEnd, this.options, this.sampler, undefined, this.ws, this.constants);
     const n = this.timesS.length;
     for (let i = 0; i < n; i++) {
-      xOut[i] = this.out[4 * i];
-      yOut[i] = this.out[4 * i + 1];
+      xOut[i] = this.out[2 * i];
+      yOut[i] = this.out[2 * i + 1];
     }
     return run.recordedSteps;
   }

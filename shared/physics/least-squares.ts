@@ -266,8 +266,9 @@ export function leastSquares(problem: LeastSquaresProblem, options: LeastSquares
     p = pNew;
     rss = rssNew;
     const quiet = drop <= rssRelTol && maxRel <= paramRelTol;
-    // Converged only when an undamped (polish) burst could not improve either.
-    if (quiet && polish) { converged = true; break; }
+    // Converged when an undamped (polish) burst makes no real progress, or when
+    // a burst finds no lower sum of squares at all (every trial step failed).
+    if (quiet && (polish || drop === 0)) { converged = true; break; }
     quietBursts = quiet || drop < 1e-6 ? 1 : 0;
   }
 
