@@ -71,12 +71,12 @@ export function fitRoutes(api: RouteTable, deps: AppDeps) {
       .where(and(eq(shots.id, params.shotId), eq(shots.teamId, team.id)));
     if (!shot) throw notFound('No such shot in this team.');
     const trackRows = await db
-      .select({ id: tracks.id, kind: tracks.kind, clipId: tracks.clipId, markCount: count(marks.frameNumber) })
+      .select({ id: tracks.id, name: tracks.name, kind: tracks.kind, clipId: tracks.clipId, markCount: count(marks.frameNumber) })
       .from(tracks)
       .innerJoin(clips, eq(clips.id, tracks.clipId))
       .leftJoin(marks, eq(marks.trackId, tracks.id))
       .where(and(eq(clips.shotId, shot.id), eq(tracks.teamId, team.id)))
-      .groupBy(tracks.id, tracks.kind, tracks.clipId, tracks.createdAt)
+      .groupBy(tracks.id, tracks.name, tracks.kind, tracks.clipId, tracks.createdAt)
       .orderBy(asc(tracks.createdAt));
     const body: ShotFits = {
       shot,

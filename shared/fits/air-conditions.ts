@@ -62,7 +62,7 @@ export function airForFit(c: ShotConditions): AirForFit {
     densityKgM3: value,
     densitySigmaKgM3: sigma,
     temperatureK: c.airTempC + ZERO_CELSIUS_K,
-    source: `humid-air ideal-gas mixture (Buck 1981 vapour pressure) from ${c.airTempC} °C, ${c.stationPressurePa} Pa` +
+    source: `humid-air ideal-gas mixture (Buck 1981 vapour pressure) from ${c.airTempC} °C, ${c.stationPressurePa.toFixed(0)} Pa` +
       (rhMeasured ? `, ${rhPct} %RH` : ', humidity not recorded (50 %RH assumed)'),
     sigmaSource: `propagated from ±${CONDITION_SIGMAS.temperatureK} K, ±${CONDITION_SIGMAS.pressurePa} Pa, ±${rhSigma} %RH (common practice for a field weather meter)`,
   };

@@ -102,7 +102,7 @@ export interface FitDetail extends FitSummary {
 
 export interface ShotFits {
   shot: { id: string; label: string; seriesName: string | null };
-  tracks: { id: string; kind: string; clipId: string; markCount: number }[];
+  tracks: { id: string; name: string; kind: string; clipId: string; markCount: number }[];
   fits: FitSummary[];
 }
 

@@ -3,6 +3,9 @@ import type { Estimate, FitShotResult } from '@shared/physics/types';
 import type { FitInputSnapshot } from '@shared/fits/snapshot';
 import { Card } from '@/components/ui/card';
 
+/** Degrees attach to the number; other units take a space (SI Brochure §5.4.3). */
+const withUnit = (text: string, unit: string) => (unit === '' ? text : unit === '°' ? `${text}°` : `${text} ${unit}`);
+
 interface Row {
   label: string;
   unit: string;
@@ -15,7 +18,8 @@ interface Row {
 function ballisticCoefficient(result: FitShotResult, snapshot: FitInputSnapshot): Estimate | null {
   const cd = result.dragCoefficient;
   if (!(cd.value > 0)) return null;
-  const area = snapshot.projectile.referenceAreaM2 ?? (Math.PI * snapshot.projectile.diameterM ** 2) / 4;
+  // The physics core uses the frontal area π d²/4 for Cd, so the same area here.
+  const area = (Math.PI * snapshot.projectile.diameterM ** 2) / 4;
   const bc = (c: number) => snapshot.projectile.massKg / (c * area);
   const hi = cd.ci95[0] > 0 ? bc(cd.ci95[0]) : Number.POSITIVE_INFINITY;
   return { value: bc(cd.value), stdErr: (bc(cd.value) * cd.stdErr) / cd.value, ci95: [bc(cd.ci95[1]), hi] };
@@ -46,10 +50,10 @@ export function EstimatesCard({ result, snapshot }: { result: FitShotResult; sna
             <tr key={r.label} className="border-b border-line/60 last:border-0" data-quantity={r.label}>
               <th scope="row" className="py-1.5 pr-3 text-left font-medium text-ink">{r.label}</th>
               <td className="py-1.5 pr-3 text-right tabular-nums text-lead font-semibold text-fit-dark">
-                {r.estimate ? `${formatValue(r.estimate)} ${r.unit}` : '—'}
+                {r.estimate ? withUnit(formatValue(r.estimate), r.unit) : '—'}
               </td>
               <td className="py-1.5 pr-3 text-right tabular-nums text-ink-soft">
-                {r.estimate ? (Number.isFinite(r.estimate.ci95[1]) ? `${formatInterval(r.estimate)} ${r.unit}` : `above ${r.estimate.ci95[0].toFixed(2)} ${r.unit}`) : 'not defined (Cd not positive)'}
+                {r.estimate ? (Number.isFinite(r.estimate.ci95[1]) ? withUnit(formatInterval(r.estimate), r.unit) : withUnit(`above ${r.estimate.ci95[0].toFixed(2)}`, r.unit)) : 'not defined (Cd not positive)'}
               </td>
               <td className="py-1.5 text-micro text-ink-faint">{r.from}</td>
             </tr>

@@ -1,4 +1,4 @@
-import { useEffect, useMemo, useState } from 'react';
+import { useEffect, useMemo, useRef, useState, type ReactNode } from 'react';
 import { Circle, Image as KonvaImage, Layer, Line, Stage } from 'react-konva';
 import { buildCalibrationTransform } from '@shared/geometry/calibration-transform';
 import type { FitDetail } from '@shared/schemas/fits';
@@ -6,7 +6,20 @@ import { frameImageUrl } from '../api/keys';
 import type { FitPlots } from '../hooks/use-fit-plots';
 import { CHART } from './chart-colours';
 
-const MAX_WIDTH = 720;
+/** Width of the element, kept up to date as the layout changes. */
+function useWidth<T extends HTMLElement>() {
+  const ref = useRef<T>(null);
+  const [width, setWidth] = useState(0);
+  useEffect(() => {
+    const el = ref.current;
+    if (!el) return;
+    const observer = new ResizeObserver(([entry]) => setWidth(entry.contentRect.width));
+    observer.observe(el);
+    setWidth(el.clientWidth);
+    return () => observer.disconnect();
+  }, []);
+  return { ref, width };
+}
 
 function useImage(url: string) {
   const [image, setImage] = useState<HTMLImageElement | null>(null);
@@ -33,6 +46,7 @@ export function FrameOverlay({ teamId, fit, plots }: { teamId: string; fit: FitD
   const marks = fit.snapshot.marks;
   const frame = marks[Math.floor(marks.length / 2)]?.frameNumber ?? 0;
   const { image, failed } = useImage(frameImageUrl(teamId, fit.clipId, frame));
+  const { ref, width } = useWidth<HTMLDivElement>();
   const transform = useMemo(() => {
     try {
       return buildCalibrationTransform(fit.snapshot.calibration.geometry);
@@ -41,18 +55,20 @@ export function FrameOverlay({ teamId, fit, plots }: { teamId: string; fit: FitD
     }
   }, [fit.snapshot.calibration.geometry]);
 
-  if (failed) return <p className="text-body text-ink-soft">The frame image could not be loaded, so the overlay is not shown.</p>;
-  if (!transform) return <p className="text-body text-ink-soft">The stored calibration cannot be drawn.</p>;
-  if (!image) return <p className="text-body text-ink-faint">Loading frame {frame}…</p>;
+  let body: ReactNode = null;
+  if (failed) body = <p className="text-body text-ink-soft">The frame image could not be loaded, so the overlay is not shown.</p>;
+  else if (!transform) body = <p className="text-body text-ink-soft">The stored calibration cannot be drawn.</p>;
+  else if (!image || width === 0) body = <p className="text-body text-ink-faint">Loading frame {frame}…</p>;
+  if (body || !image || !transform) return <div ref={ref}>{body}</div>;
 
-  const scale = Math.min(1, MAX_WIDTH / image.naturalWidth);
+  const scale = Math.min(2, width / image.naturalWidth);
   const toPoints = (pts: { xM: number; yM: number }[]) =>
     pts.flatMap((p) => {
       const q = transform.worldToImage({ x: p.xM, y: p.yM });
       return [q.u * scale, q.v * scale];
     });
   return (
-    <figure aria-label={`Fit overlaid on frame ${frame}`} data-chart="overlay">
+    <figure ref={ref} aria-label={`Fit overlaid on frame ${frame}`} data-chart="overlay">
       <Stage width={image.naturalWidth * scale} height={image.naturalHeight * scale}>
         <Layer listening={false}>
           <KonvaImage image={image} width={image.naturalWidth * scale} height={image.naturalHeight * scale} />

@@ -34,7 +34,10 @@ export function ShotFitsPage() {
             {projectileTracks.map((t) => (
               <li key={t.id} className="flex items-center justify-between gap-3">
                 <span className="text-body">
-                  Projectile track · {t.markCount} marks
+                  <span className="font-medium">{t.name}</span> · {t.markCount} marks ·{' '}
+                  <Link className="text-signal-dark underline" to={`/t/${teamId}/clips/${t.clipId}/workspace`}>
+                    open in the workspace
+                  </Link>
                 </span>
                 {can(CAN.runFits) && (
                   <Button
