@@ -162,11 +162,13 @@ export function fitShot(input: FitShotInput): FitShotResult {
   if (outlierCount > 0) {
     cautions.push(`${outlierCount} mark(s) lie more than 3.5 robust standard deviations from the fitted path; check them.`);
   }
+  // The free-g parabola checks time base and scale only when drag is negligible;
+  // with resolved drag its g absorbs the drag and says nothing about the clip.
   const gFree = free.result.freeGravityMps2;
-  if (Math.abs(gFree.value - g) > 3 * gFree.stdErr && Math.abs(gFree.value / g - 1) > 0.02) {
+  if (!dragResolved && Math.abs(gFree.value - g) > 3 * gFree.stdErr && Math.abs(gFree.value / g - 1) > 0.02) {
     cautions.push(
-      `A drag-free fit with free gravity gives g = ${gFree.value.toFixed(3)} m/s^2 (expected ${g}); ` +
-        'if drag is small this points at a wrong frame rate or scale.',
+      `A drag-free fit with free gravity gives g = ${gFree.value.toFixed(3)} m/s^2 (expected ${g}): ` +
+        'this points at a wrong frame rate or scale.',
     );
   }
   if (k > 0 && dragResolved) {

@@ -58,6 +58,17 @@ describe('fitShot synthetic round trip', () => {
     expect(r.launchSpeedMps.value).toBeCloseTo(r.dragFree.launchSpeedMps.value, 12);
   });
 
+  it('flags a wrong frame rate through the free-g check when drag is negligible', () => {
+    // Clip filmed at 240 fps but stamped as 200 fps: times stretch by 1.2, so g looks 1.44 x smaller.
+    const marks = syntheticMarks({ speedMps: 8, angleDeg: 30, dragK_perM: 0, frameRateHz: 240, markCount: 60, noiseM: 0.001, seed: 17 });
+    const stretched = marks.map((m) => ({ ...m, tS: m.tS * 1.2 }));
+    const r = fitShot({ marks: stretched, massKg: 0.5, diameterM: 0.05, airDensityKgM3: 1.2 });
+    expect(r.dragFree.freeGravityMps2.value).toBeCloseTo(9.80665 / 1.44, 1);
+    expect(r.cautions.some((c) => /wrong frame rate or scale/.test(c))).toBe(true);
+    const honest = fitShot({ marks, massKg: 0.5, diameterM: 0.05, airDensityKgM3: 1.2 });
+    expect(honest.cautions.some((c) => /wrong frame rate/.test(c))).toBe(false);
+  });
+
   it('is deterministic and JSON-safe', () => {
     const marks = syntheticMarks({ speedMps: 30, angleDeg: 40, dragK_perM: K_SPHERE, frameRateHz: 300, markCount: 120, noiseM: 0.002, seed: 5 });
     const input = { marks, ...BALL, muzzle: { xM: -0.3, yM: 0.75 } };
