@@ -1,17 +1,7 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
-import type { Role } from '@shared/roles';
+import type { InvitationPreview } from '@shared/schemas/teams';
 import { apiGet } from '@/lib/api-client';
 import { authKeys } from './keys';
-
-export type InvitationState = 'pending' | 'expired' | 'used' | 'revoked';
-
-export interface InvitationPreview {
-  teamName: string;
-  email: string;
-  role: Role;
-  state: InvitationState;
-  accountExists: boolean;
-}
 
 export function fetchInvitationPreview(token: string): Promise<InvitationPreview> {
   return apiGet<InvitationPreview>(`/api/invitations/${encodeURIComponent(token)}`);

@@ -13,7 +13,9 @@ import { KeyValueList } from '@/components/ui/key-value-list';
 import { LoadingBlock } from '@/components/ui/spinner';
 import { TextField } from '@/components/ui/text-field';
 import { useAcceptInvitation } from '../api/accept-invitation';
-import { useInvitationPreview, type InvitationPreview, type InvitationState } from '../api/invitation-preview';
+import type { InvitationPreview, InvitationState } from '@shared/schemas/teams';
+import { formatDate } from '@/lib/format';
+import { useInvitationPreview } from '../api/invitation-preview';
 
 // A new account names itself, picks a password and types it twice; an
 // existing account only proves its password. Both send InvitationAcceptBody.
@@ -54,8 +56,10 @@ export function AcceptInvitationPage() {
         <KeyValueList
           items={[
             { label: 'Team', value: invitation.teamName },
+            ...(invitation.siteName ? [{ label: 'Test site', value: invitation.siteName }] : []),
             { label: 'For', value: invitation.email },
             { label: 'Role', value: <Badge tone="signal">{ROLE_LABELS[invitation.role]}</Badge> },
+            { label: 'Valid until', value: formatDate(invitation.expiresAt) },
           ]}
         />
         <p className="mt-3 text-micro text-ink-soft">{ROLE_DUTIES[invitation.role]}</p>

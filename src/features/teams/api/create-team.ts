@@ -1,19 +1,14 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import type { z } from 'zod';
-import type { TeamCreateBody } from '@shared/schemas/teams';
+import type { TeamCreateBody, TeamView } from '@shared/schemas/teams';
 import { apiPost } from '@/lib/api-client';
 import { meKeys } from '@/lib/use-me';
 import { teamKeys } from './keys';
 
 export type CreateTeamInput = z.input<typeof TeamCreateBody>;
 
-export interface CreatedTeam {
-  id: string;
-  name: string;
-}
-
-export function createTeam(body: CreateTeamInput): Promise<CreatedTeam> {
-  return apiPost<CreatedTeam>('/api/teams', { ...body });
+export function createTeam(body: CreateTeamInput): Promise<TeamView> {
+  return apiPost<TeamView>('/api/teams', { ...body });
 }
 
 /** The creator becomes the team's admin, so "me" (my teams and roles) changes too. */

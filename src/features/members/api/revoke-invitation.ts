@@ -1,0 +1,15 @@
+import { useMutation, useQueryClient } from '@tanstack/react-query';
+import { apiDelete } from '@/lib/api-client';
+import { memberKeys } from './keys';
+
+export function revokeInvitation(teamId: string, invitationId: string): Promise<void> {
+  return apiDelete<void>(`/api/teams/${teamId}/invitations/${invitationId}`);
+}
+
+export function useRevokeInvitation(teamId: string) {
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationFn: (invitationId: string) => revokeInvitation(teamId, invitationId),
+    onSettled: () => queryClient.invalidateQueries({ queryKey: memberKeys.invitations(teamId) }),
+  });
+}
