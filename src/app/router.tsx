@@ -6,10 +6,6 @@ import { MembersPage } from '@/features/members/components/members-page';
 import { OutboxPage } from '@/features/mail/components/outbox-page';
 import { MyMailPage } from '@/features/mail/components/my-mail-page';
 import { SettingsPage } from '@/features/account/components/settings-page';
-import { MembersPage } from '@/features/members/components/members-page';
-import { OutboxPage } from '@/features/mail/components/outbox-page';
-import { MyMailPage } from '@/features/mail/components/my-mail-page';
-import { SettingsPage } from '@/features/account/components/settings-page';
 import { WorkspacePage } from '@/features/workspace/components/workspace-page';
 import { KitPage } from '@/features/records/components/kit-page';
 import { SeriesPage } from '@/features/records/components/series-page';
@@ -46,12 +42,8 @@ export function AppRouter() {
             <Route index element={<HomeRedirect />} />
             <Route path="/mail" element={<MyMailPage />} />
             <Route path="/settings" element={<SettingsPage />} />
-            <Route path="/mail" element={<MyMailPage />} />
-            <Route path="/settings" element={<SettingsPage />} />
             <Route path="/t/:teamId" element={<TeamGate />}>
               <Route index element={<TeamHomePage links={TEAM_HOME_LINKS} panels={TEAM_HOME_PANELS} />} />
-              <Route path="members" element={<MembersPage />} />
-              <Route path="outbox" element={<RequireRole roles={CAN.manageMembers}><OutboxPage /></RequireRole>} />
               <Route path="members" element={<MembersPage />} />
               <Route path="outbox" element={<RequireRole roles={CAN.manageMembers}><OutboxPage /></RequireRole>} />
               <Route path="clips/:clipId/workspace" element={<WorkspacePage />} />
