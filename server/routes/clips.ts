@@ -1,4 +1,4 @@
-import { createHash, randomUUID } from 'node:crypto';
+import { createHash } from 'node:crypto';
 import type { NextFunction, Request, Response } from 'express';
 import { and, asc, eq, sql } from 'drizzle-orm';
 import { CAN } from '../../shared/roles';
@@ -17,6 +17,7 @@ import { audit } from '../audit';
 import { signedIn, teamRole } from '../auth/access';
 import { loadClipView, loadClipViews } from '../clips/clip-view';
 import { inspectClip, receiveClipUpload, receivedFile } from '../clips/intake';
+import { storeClip } from '../clips/store-clip';
 import { clipFrames, clips } from '../db/schema/clips';
 import { shots } from '../db/schema/records';
 import { currentTeam, currentUser, input } from '../http/input';
@@ -112,57 +113,19 @@ export function clipRoutes(api: RouteTable, deps: AppDeps) {
     if (outFrame > facts.frameCount - 1 || inFrame > outFrame) {
       throw badRequest(`The clip has ${facts.frameCount} frames (0–${facts.frameCount - 1}); inFrame ${inFrame} / outFrame ${outFrame} is outside it.`);
     }
-    const timeBase = analyseTimeBase({ ptsS: facts.ptsS, containerFps: facts.probe.containerFps, baseFps: facts.probe.baseFps, captureFps: body.captureFps });
-    const [dup] = await db
-      .select({ id: clips.id })
-      .from(clips)
-      .where(and(eq(clips.teamId, params.teamId), eq(clips.sha256, file.sha256)))
-      .orderBy(asc(clips.createdAt))
-      .limit(1);
-
-    const clipId = randomUUID();
-    const key = `${clipPrefix(params.teamId, clipId)}original.${facts.container}`;
-    await storage.putFile(key, file.path);
-    try {
-      await db.transaction(async (tx) => {
-        await tx.insert(clips).values({
-          id: clipId,
-          teamId: params.teamId,
-          shotId: params.shotId,
-          originalName,
-          sha256: file.sha256,
-          sizeBytes: file.size,
-          storageKey: key,
-          formatName: facts.probe.formatName,
-          codec: facts.probe.codec,
-          width: facts.probe.width,
-          height: facts.probe.height,
-          rotationDeg: facts.probe.rotationDeg,
-          containerFps: facts.probe.containerFps,
-          captureFps: body.captureFps,
-          frameCount: facts.frameCount,
-          durationS: facts.probe.durationS,
-          variableFrameRate: timeBase.variableFrameRate,
-          timeBaseWarnings: timeBase.warnings,
-          duplicateOfClipId: dup?.id ?? null,
-          inFrame,
-          outFrame,
-          status: 'queued',
-          createdBy: currentUser(res).id,
-        });
-        await audit(tx, {
-          teamId: params.teamId,
-          actorUserId: currentUser(res).id,
-          action: 'clip.upload',
-          targetType: 'clip',
-          targetId: clipId,
-          detail: { shotId: params.shotId, originalName, sizeBytes: file.size, sha256: file.sha256 },
-        });
-      });
-    } catch (err) {
-      await storage.deletePrefix(clipPrefix(params.teamId, clipId)).catch(() => {});
-      throw err;
-    }
+    const clipId = await storeClip(db, storage, {
+      teamId: params.teamId,
+      shotId: params.shotId,
+      file: file.path,
+      facts,
+      originalName,
+      sha256: file.sha256,
+      sizeBytes: file.size,
+      captureFps: body.captureFps,
+      inFrame,
+      outFrame,
+      createdBy: currentUser(res).id,
+    });
     await enqueue(clipId);
     res.status(201).json(await view(params.teamId, clipId));
   }

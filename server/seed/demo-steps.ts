@@ -1,5 +1,6 @@
+import { demoClipsStep } from './demo-clips';
 import { demoRecordsStep } from './demo-records';
 import type { SeedStep } from './seed-demo';
 
 /** Demo data beyond the team and its people, in the order it is seeded. Areas append their steps here. */
-export const DEMO_STEPS: SeedStep[] = [demoRecordsStep];
+export const DEMO_STEPS: SeedStep[] = [demoRecordsStep, demoClipsStep];
