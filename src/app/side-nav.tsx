@@ -20,8 +20,13 @@ export function SideNav({ team }: { team: TeamMembership | undefined }) {
             <p className="truncate text-body font-semibold text-ink" title={team.name}>
               {team.name}
             </p>
-            <p className="truncate text-micro text-ink-faint">
-              {team.siteName ?? 'No site set'} · {ROLE_LABELS[team.role]}
+            {team.siteName && (
+              <p className="truncate text-micro text-ink-faint" title={team.siteName}>
+                {team.siteName}
+              </p>
+            )}
+            <p className="mt-1 text-micro text-ink-soft">
+              You: <span className="font-medium text-signal-dark">{ROLE_LABELS[team.role]}</span>
             </p>
           </div>
           <ul className="flex flex-col gap-0.5">

@@ -17,12 +17,12 @@ export function TeamSwitcher({ teams, currentTeamId }: TeamSwitcherProps) {
       <select
         value={currentTeamId ?? ''}
         onChange={(e) => navigate(`/t/${e.target.value}`)}
-        className="h-8 max-w-64 rounded-md border border-paper/20 bg-ink-soft/60 px-2 text-body text-paper hover:border-paper/40"
+        className="h-8 max-w-80 rounded-md border border-paper/20 bg-ink-soft/60 px-2 text-body text-paper hover:border-paper/40"
       >
         {!currentTeamId && <option value="">Choose a team…</option>}
         {teams.map((t) => (
           <option key={t.id} value={t.id} className="bg-paper-raised text-ink">
-            {t.name} — {ROLE_LABELS[t.role]}
+            {t.name} ({ROLE_LABELS[t.role]})
           </option>
         ))}
       </select>

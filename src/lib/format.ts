@@ -1,8 +1,7 @@
 // Number formatting for measured and fitted values. Everything the UI prints
 // about a shot goes through here so units, digits and intervals look the same
-// on every page. Uses U+2212 minus and U+2013 en dash for ranges, the usual
-// typographic convention for numbers (SI Brochure, 9th ed., §5.4.2 for the
-// space between value and unit).
+// on every page. A space between value and unit as the SI Brochure (9th ed.)
+// asks; U+2212 minus and U+2013 en dash for ranges (typographic common practice).
 
 const MINUS = '\u2212';
 const EN_DASH = '\u2013';

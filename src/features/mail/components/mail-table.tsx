@@ -26,7 +26,9 @@ export function MailTable({ caption, messages, loading, pagination, selectedId, 
           sortFn: 'datetime',
           cell: (info) => <span className="tabular-nums whitespace-nowrap text-ink-soft">{formatDateTime(info.getValue())}</span>,
         }),
-        ...(showRecipient ? [col.accessor('to', { header: 'To' })] : [col.accessor('from', { header: 'From' })]),
+        ...(showRecipient
+          ? [col.accessor('to', { header: 'To', cell: (info) => <span className="break-all">{info.getValue()}</span> })]
+          : [col.accessor('from', { header: 'From', cell: (info) => <span className="break-all">{info.getValue()}</span> })]),
         col.accessor('subject', {
           header: 'Subject',
           cell: (info) => (

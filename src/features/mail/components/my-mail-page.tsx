@@ -26,7 +26,7 @@ export function MyMailPage() {
       <div className="flex flex-col gap-4">
         {mail.data && <MailDeliveryNote fakeMail={mail.data.fakeMail} />}
         <FormError error={mail.error ?? single.error} />
-        <div className={selected ? 'grid gap-5 xl:grid-cols-[minmax(0,1fr)_minmax(0,1fr)]' : undefined}>
+        <div className={selected ? 'grid items-start gap-5 xl:grid-cols-[minmax(0,3fr)_minmax(0,2fr)]' : undefined}>
           <MailTable
             caption="My mail"
             messages={mail.data?.items ?? []}

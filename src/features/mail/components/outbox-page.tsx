@@ -22,7 +22,7 @@ export function OutboxPage() {
       <div className="flex flex-col gap-4">
         {outbox.data && <MailDeliveryNote fakeMail={outbox.data.fakeMail} />}
         <FormError error={outbox.error} />
-        <div className={selected ? 'grid gap-5 xl:grid-cols-[minmax(0,1fr)_minmax(0,1fr)]' : undefined}>
+        <div className={selected ? 'grid items-start gap-5 xl:grid-cols-[minmax(0,3fr)_minmax(0,2fr)]' : undefined}>
           <MailTable
             caption="Team outbox"
             messages={outbox.data?.items ?? []}

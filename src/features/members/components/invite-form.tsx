@@ -33,10 +33,8 @@ export function InviteForm({ teamId }: { teamId: string }) {
 
   return (
     <form noValidate onSubmit={onSubmit} className="flex flex-col gap-4">
-      <div className="grid gap-4 sm:grid-cols-[minmax(0,1fr)_12rem]">
-        <TextField label="E-mail" type="email" autoComplete="off" error={errors.email?.message} {...form.register('email')} />
-        <SelectField label="Role" options={ROLE_OPTIONS} error={errors.role?.message} {...form.register('role')} />
-      </div>
+      <TextField label="E-mail" type="email" autoComplete="off" error={errors.email?.message} {...form.register('email')} />
+      <SelectField label="Role" options={ROLE_OPTIONS} error={errors.role?.message} {...form.register('role')} />
       <p className="text-micro text-ink-soft">
         <span className="font-medium text-ink">{ROLE_LABELS[role]}:</span> {ROLE_DUTIES[role]}
       </p>

@@ -1,0 +1,74 @@
+import { afterAll, beforeAll, expect, inject, it } from 'vitest';
+import type { Browser } from 'playwright-core';
+import { DEMO_PASSWORD, DEMO_TEAM, demoPerson } from '../../server/seed/demo-people';
+import { launchBrowser, screenshot, signIn } from '../support/browser';
+
+// An admin's round trip through the real server and the local mail fake:
+// invite a newcomer from the members page, read the invitation in the team
+// outbox, follow its link in a fresh browser, create the account and arrive
+// in the team with the invited role. The last-admin rule is shown in words.
+let browser: Browser;
+beforeAll(async () => {
+  browser = await launchBrowser();
+});
+afterAll(() => browser?.close());
+
+const suffix = `${Date.now().toString(36)}${Math.random().toString(36).slice(2, 6)}`;
+const newcomer = { email: `newcomer-${suffix}@kestrel.test`, name: `Rui Newcomer ${suffix}`, password: 'a long enough phrase 42' };
+
+it('invites a tracker, shows the mail in the outbox, and the link makes a member with that role', async () => {
+  const baseUrl = inject('baseUrl');
+  const admin = demoPerson('admin');
+  const page = await (await browser.newContext({ viewport: { width: 1360, height: 900 } })).newPage();
+  await signIn(page, baseUrl, admin.email, DEMO_PASSWORD);
+  await page.waitForURL(/\/t\/[0-9a-f-]{36}$/);
+  const nav = page.getByRole('navigation', { name: 'Main' });
+
+  await nav.getByRole('link', { name: 'Members' }).click();
+  await page.getByRole('table', { name: 'Members' }).getByRole('button', { name: `Remove ${demoPerson('analyst').displayName}` }).waitFor();
+
+  // The seeded team has one admin: demoting her must be refused, readably.
+  await page.getByLabel(`Role of ${admin.displayName}`).selectOption('analyst');
+  const refusal = page.getByRole('alert').filter({ hasText: 'last admin' });
+  await refusal.waitFor();
+  await expect(refusal.textContent()).resolves.toContain('every team needs at least one admin');
+  await expect(page.getByLabel(`Role of ${admin.displayName}`).inputValue()).resolves.toBe('admin');
+
+  const invite = page.getByRole('region', { name: 'Invite someone' });
+  await invite.getByLabel('E-mail').fill(newcomer.email);
+  await invite.getByLabel('Role').selectOption('tracker');
+  await invite.getByRole('button', { name: 'Send invitation' }).click();
+  await invite.getByRole('status').filter({ hasText: `Invitation sent to ${newcomer.email}` }).waitFor();
+  const row = page.getByRole('table', { name: 'Invitations' }).getByRole('row').filter({ hasText: newcomer.email });
+  await expect(row.getByText('Waiting').isVisible()).resolves.toBe(true);
+  await screenshot(page, 'members-admin');
+
+  await nav.getByRole('link', { name: 'Outbox' }).click();
+  const outbox = page.getByRole('table', { name: 'Team outbox' });
+  await outbox.getByRole('row').filter({ hasText: newcomer.email }).first().getByRole('button').click();
+  const message = page.getByRole('article');
+  const link = message.getByRole('link', { name: /\/invite\// });
+  const href = await link.getAttribute('href');
+  expect(href).toMatch(/\/invite\/[A-Za-z0-9_-]{20,}$/);
+  await screenshot(page, 'outbox-message');
+
+  // The newcomer opens the link in their own browser (no session).
+  const guest = await (await browser.newContext({ viewport: { width: 1360, height: 900 } })).newPage();
+  await guest.goto(`${baseUrl}${new URL(href!).pathname}`);
+  await guest.getByRole('heading', { name: `Join ${DEMO_TEAM.name}` }).waitFor();
+  await guest.getByLabel('Your name').fill(newcomer.name);
+  await guest.getByLabel('Password', { exact: true }).fill(newcomer.password);
+  await guest.getByLabel('Password again').fill(newcomer.password);
+  await screenshot(guest, 'invitation-accept');
+  await guest.getByRole('button', { name: 'Create account and join' }).click();
+  await guest.waitForURL(/\/t\/[0-9a-f-]{36}$/);
+  await expect(guest.getByRole('heading', { level: 1 }).textContent()).resolves.toBe(DEMO_TEAM.name);
+  await expect(guest.getByRole('region', { name: 'Your role' }).getByText('Tracker', { exact: true }).isVisible()).resolves.toBe(true);
+
+  // Opening the same link again now says plainly that it was used.
+  await guest.goto(`${baseUrl}${new URL(href!).pathname}`);
+  await guest.getByRole('heading', { name: 'This invitation has already been used' }).waitFor();
+
+  await page.context().close();
+  await guest.context().close();
+});
