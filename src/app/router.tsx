@@ -10,7 +10,9 @@ import { WorkspacePage } from '@/features/workspace/components/workspace-page';
 import { KitPage } from '@/features/records/components/kit-page';
 import { SeriesPage } from '@/features/records/components/series-page';
 import { ShotEditPage } from '@/features/records/components/shot-edit-page';
+import { ShotDetailPage } from '@/features/records/components/shot-detail-page';
 import { ShotNewPage } from '@/features/records/components/shot-new-page';
+import { ShotClipsPanel } from '@/features/clips/components/shot-clips-panel';
 import { ShotsPage } from '@/features/records/components/shots-page';
 import { FitPage } from '@/features/fits/components/fit-page';
 import { ShotFitsPage } from '@/features/fits/components/shot-fits-page';
@@ -50,6 +52,7 @@ export function AppRouter() {
               <Route path="shots" element={<ShotsPage />} />
               <Route path="shots/new" element={<RequireRole roles={CAN.editShots}><ShotNewPage /></RequireRole>} />
               <Route path="shots/:shotId/edit" element={<RequireRole roles={CAN.editShots}><ShotEditPage /></RequireRole>} />
+              <Route path="shots/:shotId" element={<ShotDetailPage clipPanel={(shot) => <ShotClipsPanel {...shot} />} />} />
               <Route path="series" element={<SeriesPage />} />
               <Route path="kit" element={<KitPage />} />
               <Route path="fits/:fitId" element={<FitPage />} />

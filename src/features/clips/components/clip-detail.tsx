@@ -1,0 +1,74 @@
+import { useQueryClient } from '@tanstack/react-query';
+import { useEffect, useRef } from 'react';
+import { Link } from 'react-router';
+import type { ClipView } from '@shared/schemas/clips';
+import { ButtonLink } from '@/components/ui/button-link';
+import { Card } from '@/components/ui/card';
+import { FormError } from '@/components/ui/form-error';
+import { LoadingBlock } from '@/components/ui/spinner';
+import { formatBytes, formatDateTime } from '@/lib/format';
+import { isWorking, useClip } from '../api/get-clip';
+import { clipKeys } from '../api/keys';
+import { useClipFrames } from '../api/list-clip-frames';
+import { ExtractionStatus } from './extraction-status';
+import { FrameViewer } from './frame-viewer';
+import { TimeBasePanel } from './time-base-panel';
+
+/** One clip: live extraction status, its time base, and its frames once they exist. */
+export function ClipDetail({ teamId, clipId, initial, canEdit, onDeleted }: { teamId: string; clipId: string; initial?: ClipView; canEdit: boolean; onDeleted: () => void }) {
+  const client = useQueryClient();
+  const query = useClip(teamId, clipId);
+  const clip = query.data ?? initial;
+  const ready = clip?.status === 'ready';
+  const frames = useClipFrames(teamId, clipId, ready);
+
+  // When extraction settles, the frame list and the shot's clip list are out of date.
+  const lastStatus = useRef(clip?.status);
+  useEffect(() => {
+    if (!clip) return;
+    if (lastStatus.current && lastStatus.current !== clip.status && !isWorking(clip.status)) {
+      void client.invalidateQueries({ queryKey: clipKeys.frames(teamId, clipId) });
+      void client.invalidateQueries({ queryKey: clipKeys.shotClips(teamId, clip.shotId) });
+    }
+    lastStatus.current = clip.status;
+  }, [clip, client, teamId, clipId]);
+
+  if (!clip) return query.isLoading ? <LoadingBlock label="Loading the clip…" /> : <FormError error={query.error} />;
+
+  return (
+    <Card
+      title={clip.originalName}
+      subtitle={`${formatBytes(clip.sizeBytes)} · uploaded ${formatDateTime(clip.createdAt)}`}
+      actions={
+        ready && (
+          <ButtonLink to={`/t/${teamId}/clips/${clip.id}/workspace`} variant="primary" size="sm">
+            Mark this clip
+          </ButtonLink>
+        )
+      }
+    >
+      <div className="flex flex-col gap-5">
+        <ExtractionStatus teamId={teamId} clip={clip} canEdit={canEdit} onDeleted={onDeleted} />
+        {clip.duplicateOf && (
+          <p role="note" className="rounded-md border border-signal/50 bg-signal-light/30 px-3 py-2 text-body">
+            This file has the same contents as {clip.duplicateOf.originalName}, already uploaded{' '}
+            <Link className="underline" to={`/t/${teamId}/shots/${clip.duplicateOf.shotId}`}>
+              on another shot
+            </Link>
+            . If that was not intended, delete one of them.
+          </p>
+        )}
+        <section aria-label="Time base">
+          <h3 className="mb-2 text-body font-semibold">Time base</h3>
+          <TimeBasePanel teamId={teamId} clip={clip} frames={frames.data} canEdit={canEdit} />
+        </section>
+        {ready && (
+          <section aria-label="Frames">
+            <h3 className="mb-2 text-body font-semibold">Frames</h3>
+            {frames.data ? <FrameViewer teamId={teamId} clip={clip} frames={frames.data} /> : frames.error ? <FormError error={frames.error} /> : <LoadingBlock label="Loading frames…" />}
+          </section>
+        )}
+      </div>
+    </Card>
+  );
+}

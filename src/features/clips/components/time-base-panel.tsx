@@ -1,0 +1,113 @@
+import { zodResolver } from '@hookform/resolvers/zod';
+import { useState } from 'react';
+import { useForm } from 'react-hook-form';
+import type { z } from 'zod';
+import { ClipPatchBody, type ClipFrameView, type ClipView } from '@shared/schemas/clips';
+import { Button } from '@/components/ui/button';
+import { FormError } from '@/components/ui/form-error';
+import { KeyValueList } from '@/components/ui/key-value-list';
+import { TextField } from '@/components/ui/text-field';
+import { formatNumber, formatQuantity } from '@/lib/format';
+import { useUpdateClip } from '../api/update-clip';
+
+/** Rates closer than this are the same rate written two ways (e.g. 29.97 vs 30000/1001). */
+const SAME_RATE_TOLERANCE = 0.005;
+
+export function rateDiffers(clip: Pick<ClipView, 'containerFps' | 'captureFps'>): boolean {
+  return Math.abs(clip.containerFps - clip.captureFps) / clip.captureFps > SAME_RATE_TOLERANCE;
+}
+
+/**
+ * What the file says about time against what the analyst stated. Frame times
+ * (and so every speed) come from the capture rate, so a mismatch is shown loudly.
+ */
+export function TimeBasePanel({ teamId, clip, frames, canEdit }: { teamId: string; clip: ClipView; frames: ClipFrameView[] | undefined; canEdit: boolean }) {
+  const [editing, setEditing] = useState(false);
+  const dropped = frames?.filter((f) => f.flag === 'dropped-before').length;
+  const duplicates = frames?.filter((f) => f.flag === 'duplicate').length;
+  const differs = rateDiffers(clip);
+  const slowdown = clip.captureFps / clip.containerFps;
+
+  return (
+    <div className="flex flex-col gap-3">
+      {differs && (
+        <p role="note" className="rounded-md border-2 border-signal bg-signal-light/50 px-3 py-2 text-body text-ink">
+          The file plays at {formatQuantity(clip.containerFps, 'fps', { digits: 4 })}, but you stated it was captured at {formatQuantity(clip.captureFps, 'fps', { digits: 4 })}
+          {slowdown > 1 ? ` (${formatNumber(slowdown, { digits: 3 })}× slow motion)` : ''}. Frame times use the capture rate; check it
+          against the camera’s setting.
+        </p>
+      )}
+      <KeyValueList
+        items={[
+          { label: 'Capture rate (stated)', value: formatQuantity(clip.captureFps, 'fps', { digits: 5 }), numeric: true },
+          { label: 'Container rate (file)', value: formatQuantity(clip.containerFps, 'fps', { digits: 5 }), numeric: true },
+          { label: 'Frame interval', value: formatQuantity(1000 / clip.captureFps, 'ms', { digits: 4 }), numeric: true },
+          { label: 'Frames in file', value: clip.frameCount, numeric: true },
+          { label: 'Real duration', value: formatQuantity(clip.frameCount / clip.captureFps, 's', { digits: 4 }), numeric: true },
+          { label: 'Playback duration', value: formatQuantity(clip.durationS, 's', { digits: 4 }), numeric: true },
+          { label: 'Frame rate', value: clip.variableFrameRate ? 'variable (times from timestamps)' : 'constant' },
+          { label: 'Dropped-frame gaps', value: dropped ?? '—', numeric: true },
+          { label: 'Duplicated frames', value: duplicates ?? '—', numeric: true },
+          { label: 'Video', value: `${clip.codec}, ${clip.frameWidth}×${clip.frameHeight}${clip.rotationDeg ? `, turned ${clip.rotationDeg}°` : ''}`, numeric: true },
+        ]}
+      />
+      {clip.warnings.length > 0 && (
+        <ul className="flex flex-col gap-1" aria-label="Time-base warnings">
+          {clip.warnings.map((w) => (
+            <li key={w.code + w.message} className="rounded-md border border-signal/50 bg-signal-light/30 px-3 py-1.5 text-micro text-ink">
+              {w.message}
+            </li>
+          ))}
+        </ul>
+      )}
+      {canEdit && !editing && (
+        <div>
+          <Button size="sm" variant="ghost" onClick={() => setEditing(true)}>
+            Change capture rate or range
+          </Button>
+        </div>
+      )}
+      {canEdit && editing && <ClipSettingsForm teamId={teamId} clip={clip} onDone={() => setEditing(false)} />}
+    </div>
+  );
+}
+
+function ClipSettingsForm({ teamId, clip, onDone }: { teamId: string; clip: ClipView; onDone: () => void }) {
+  const update = useUpdateClip(teamId);
+  const { register, handleSubmit, formState } = useForm<z.input<typeof ClipPatchBody>, unknown, z.output<typeof ClipPatchBody>>({
+    resolver: zodResolver(ClipPatchBody),
+    defaultValues: { captureFps: clip.captureFps, inFrame: clip.inFrame, outFrame: clip.outFrame },
+  });
+  const submit = handleSubmit(async (values) => {
+    // Send only what changed: a new range re-extracts, a new rate only recomputes times.
+    const body: z.output<typeof ClipPatchBody> = {};
+    if (values.captureFps !== clip.captureFps) body.captureFps = values.captureFps;
+    if (values.inFrame !== clip.inFrame) body.inFrame = values.inFrame;
+    if (values.outFrame !== clip.outFrame) body.outFrame = values.outFrame;
+    try {
+      if (Object.keys(body).length > 0) await update.mutateAsync({ clipId: clip.id, body });
+      onDone();
+    } catch {
+      // Shown by FormError from update.error; the form stays open with the values.
+    }
+  });
+  return (
+    <form onSubmit={submit} noValidate className="flex flex-col gap-3 rounded-md border border-line bg-paper p-3">
+      <div className="grid gap-3 sm:grid-cols-3">
+        <TextField label="Capture frame rate" suffix="fps" inputMode="decimal" error={formState.errors.captureFps?.message} {...register('captureFps')} />
+        <TextField label="First frame" inputMode="numeric" error={formState.errors.inFrame?.message} {...register('inFrame')} />
+        <TextField label="Last frame" inputMode="numeric" hint={`File has 0–${clip.frameCount - 1}`} error={formState.errors.outFrame?.message} {...register('outFrame')} />
+      </div>
+      <p className="text-micro text-ink-faint">A new rate recomputes every frame time. A new range extracts the frames again.</p>
+      <FormError error={update.error} />
+      <div className="flex gap-2">
+        <Button type="submit" size="sm" variant="primary" busy={formState.isSubmitting}>
+          Save
+        </Button>
+        <Button size="sm" variant="ghost" onClick={onDone}>
+          Cancel
+        </Button>
+      </div>
+    </form>
+  );
+}
