@@ -62,8 +62,14 @@ export function fitQuadraticDrag(marks: Mark[], options: DragFitOptions): DragFi
   const write = (out: Float64Array) => {
     for (let i = 0; i < n; i++) { out[i] = xs[i]; out[n + i] = ys[i]; }
   };
+  // Remember the step sequence of the last evaluation: the Jacobian that the
+  // optimiser asks for next is usually at the same point, and can replay it
+  // without integrating the base trajectory again.
+  const lastP = new Float64Array(5).fill(Number.NaN);
+  let lastSteps: number[] | undefined;
   const evaluate = (p: Float64Array, out: Float64Array) => {
-    sampler.sample(model(p), launchFromParams(p), xs, ys);
+    lastSteps = sampler.sample(model(p), launchFromParams(p), xs, ys);
+    lastP.set(p);
     write(out);
   };
   // Jacobian by central differences on a frozen step sequence (see dp45.ts):
@@ -72,9 +78,17 @@ export function fitQuadraticDrag(marks: Mark[], options: DragFitOptions): DragFi
   const minus = new Float64Array(2 * n);
   // While iterating, forward differences (half the integrations) steer well
   // enough; the final covariance uses central differences.
-  const jacobian = (p: Float64Array, _base: Float64Array, cols: Float64Array[], accurate: boolean) => {
-    const steps = sampler.sample(model(p), launchFromParams(p), xs, ys);
-    if (!accurate) write(minus);
+  const jacobian = (p: Float64Array, base: Float64Array, cols: Float64Array[], accurate: boolean) => {
+    let same = lastSteps !== undefined;
+    for (let j = 0; same && j < 5; j++) if (lastP[j] !== p[j]) same = false;
+    let steps: number[] | undefined;
+    if (same && !accurate) {
+      steps = lastSteps;
+      minus.set(base);
+    } else {
+      steps = sampler.sample(model(p), launchFromParams(p), xs, ys);
+      if (!accurate) write(minus);
+    }
     const q = Float64Array.from(p);
     for (let j = 0; j < 5; j++) {
       const h = (accurate ? CBRT_EPS : SQRT_EPS) * Math.max(Math.abs(p[j]), typical[j]);

@@ -153,6 +153,8 @@ export function leastSquares(problem: LeastSquaresProblem, options: LeastSquares
 
   const maxRestarts = Math.ceil(maxIterations / burst) + 20;
   let polishDamping = 1e-6;
+  let nextRobustShort = false;
+  let shortCheckImproved = false;
   while (iterations < maxIterations && restarts < maxRestarts) {
     // Scale each parameter by its current column norm (Marquardt scaling).
     jac(p, pred, columns, false);
@@ -193,6 +195,10 @@ export function leastSquares(problem: LeastSquaresProblem, options: LeastSquares
     // residuals up so the library's damping floor (1e-7) becomes negligible and
     // the last steps are essentially Gauss-Newton.
     const polish = quietBursts > 0 || restarts % 2 === 1;
+    // Right after a polish burst, one damped iteration is enough to confirm
+    // the minimum (it finds nothing lower) or to show that progress continues;
+    // in the second case the next robust burst gets the full length again.
+    const thisBurst: number = !polish && nextRobustShort ? 1 : burst;
     const gain = polish ? 1e4 : 1;
     const wEff = new Float64Array(n);
     const dataY = new Array<number>(n);
@@ -224,7 +230,7 @@ export function leastSquares(problem: LeastSquaresProblem, options: LeastSquares
       run = levenbergMarquardt({ x: dataX, y: dataY }, parameterizedFunction, {
         initialValues: new Array(np).fill(0),
         damping: polish ? polishDamping : startDamping,
-        maxIterations: burst,
+        maxIterations: thisBurst,
         errorTolerance: 0,
         minValues: negInfinite,
         maxValues: infinite,
@@ -233,7 +239,7 @@ export function leastSquares(problem: LeastSquaresProblem, options: LeastSquares
     } catch {
       // A numerical failure inside the library (e.g. a singular system): restart
       // from the best point with stronger damping.
-      run = { parameterValues: new Array(np).fill(0), iterations: burst };
+      run = { parameterValues: new Array(np).fill(0), iterations: thisBurst };
       startDamping = Math.min(startDamping * 100, 1e6);
     }
     iterations += Math.max(run.iterations, 1);
@@ -244,7 +250,7 @@ export function leastSquares(problem: LeastSquaresProblem, options: LeastSquares
     // The library stops early only on an exact fit or when the error became
     // NaN (a step into overflow). In the second case, damp harder next time
     // and do not read the stop as convergence.
-    if (run.iterations < burst && rssNew > 0) {
+    if (run.iterations < thisBurst && rssNew > 0) {
       if (polish) polishDamping = Math.min(polishDamping * 100, 1e6);
       else startDamping = Math.min(startDamping * 100, 1e6);
       if (rssNew < rss) { p = pNew; rss = rssNew; } else problem.model(p, pred);
@@ -266,6 +272,10 @@ export function leastSquares(problem: LeastSquaresProblem, options: LeastSquares
     p = pNew;
     rss = rssNew;
     const quiet = drop <= rssRelTol && maxRel <= paramRelTol;
+    // A polish burst makes the next robust burst a one-step check; a check that
+    // still improved earns the next robust burst its full length.
+    if (polish) nextRobustShort = !shortCheckImproved;
+    else { shortCheckImproved = thisBurst === 1 && drop > 0; nextRobustShort = false; }
     // Converged when an undamped (polish) burst makes no real progress, or when
     // a burst finds no lower sum of squares at all (every trial step failed).
     if (quiet && (polish || drop === 0)) { converged = true; break; }
