@@ -14,7 +14,6 @@ export function AppShell() {
   if (!me) return null;
   // Outside a team page (mail, settings) the side bar keeps the last team open.
   const sideTeam = me.teams.find((t) => t.id === teamId) ?? me.teams.find((t) => t.id === lastTeamId()) ?? me.teams[0];
-  const urlTeam = me.teams.find((t) => t.id === teamId);
 
   return (
     <div className="flex min-h-screen flex-col bg-paper">
@@ -23,7 +22,7 @@ export function AppShell() {
       </a>
       <header className="flex h-13 items-center gap-6 bg-ink px-4 text-paper">
         <Wordmark />
-        <TeamSwitcher teams={me.teams} currentTeamId={urlTeam?.id} />
+        <TeamSwitcher teams={me.teams} currentTeamId={sideTeam?.id} />
         <div className="flex-1" />
         <UserMenu me={me} />
       </header>

@@ -4,6 +4,10 @@ import type { TeamHomeLink, TeamHomePanel } from '@/features/teams/components/te
 // What the team home offers, per role. Features add their shortcuts and
 // panels here (one entry each); the team home only renders what it is given.
 export const TEAM_HOME_LINKS: TeamHomeLink[] = [
+  { label: 'Record a shot', description: 'Launcher, projectile and conditions first; the clip follows.', to: (teamId) => `/t/${teamId}/shots/new`, roles: CAN.editShots },
+  { label: 'Shots', description: 'Every shot of the team with its clip, marks and fit.', to: (teamId) => `/t/${teamId}/shots` },
+  { label: 'Shot results', description: 'Fitted launch speed, angle and drag with their 95% intervals.', to: (teamId) => `/t/${teamId}/results` },
+  { label: 'Launchers & projectiles', description: 'The kit the team shoots with.', to: (teamId) => `/t/${teamId}/kit` },
   { label: 'Members', description: 'Who is in the team and what each role does.', to: (teamId) => `/t/${teamId}/members` },
   { label: 'Invite people', description: 'Send an invitation by e-mail with a role.', to: (teamId) => `/t/${teamId}/members#invite`, roles: CAN.manageMembers },
   { label: 'Outbox', description: 'Every e-mail Arcbench sent for this team.', to: (teamId) => `/t/${teamId}/outbox`, roles: CAN.manageMembers },

@@ -61,6 +61,21 @@ describe('sign-in', () => {
     await page.getByRole('button', { name: 'Sign in' }).click();
     await page.waitForURL(`${baseUrl}/settings`);
     await expect(page.getByLabel('Display name').inputValue()).resolves.toBe(analyst.displayName);
+    await screenshot(page, 'settings-analyst');
+    await page.context().close();
+  });
+
+  it('answers an unknown address with a plain "no page here" inside the shell', async () => {
+    const page = await freshPage();
+    const baseUrl = inject('baseUrl');
+    await signIn(page, baseUrl, analyst.email, DEMO_PASSWORD);
+    await page.waitForURL(/\/t\//);
+    await page.goto(`${baseUrl}/no/such/page`);
+    await page.getByText('There is no page here').waitFor();
+    await expect(page.getByRole('link', { name: 'Go to my team' }).isVisible()).resolves.toBe(true);
+    await page.goto(`${baseUrl}/mail`);
+    await page.getByRole('heading', { level: 1, name: 'My mail' }).waitFor();
+    await screenshot(page, 'my-mail-analyst');
     await page.context().close();
   });
 
