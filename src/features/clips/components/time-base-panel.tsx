@@ -7,11 +7,16 @@ import { Button } from '@/components/ui/button';
 import { FormError } from '@/components/ui/form-error';
 import { KeyValueList } from '@/components/ui/key-value-list';
 import { TextField } from '@/components/ui/text-field';
-import { formatNumber, formatQuantity } from '@/lib/format';
+import { formatQuantity } from '@/lib/format';
 import { useUpdateClip } from '../api/update-clip';
 
 /** Rates closer than this are the same rate written two ways (e.g. 29.97 vs 30000/1001). */
 const SAME_RATE_TOLERANCE = 0.005;
+
+/** Frame rates read best without padding zeros: "30 fps", "29.97 fps", "240 fps". */
+function fps(value: number): string {
+  return `${Number(value.toFixed(3))}\u00a0fps`;
+}
 
 export function rateDiffers(clip: Pick<ClipView, 'containerFps' | 'captureFps'>): boolean {
   return Math.abs(clip.containerFps - clip.captureFps) / clip.captureFps > SAME_RATE_TOLERANCE;
@@ -27,20 +32,22 @@ export function TimeBasePanel({ teamId, clip, frames, canEdit }: { teamId: strin
   const duplicates = frames?.filter((f) => f.flag === 'duplicate').length;
   const differs = rateDiffers(clip);
   const slowdown = clip.captureFps / clip.containerFps;
+  // The rate mismatch and a duplicate upload have their own, fuller notes.
+  const warnings = clip.warnings.filter((w) => w.code !== 'rate-differs' && w.code !== 'duplicate-upload');
 
   return (
     <div className="flex flex-col gap-3">
       {differs && (
         <p role="note" className="rounded-md border-2 border-signal bg-signal-light/50 px-3 py-2 text-body text-ink">
-          The file plays at {formatQuantity(clip.containerFps, 'fps', { digits: 4 })}, but you stated it was captured at {formatQuantity(clip.captureFps, 'fps', { digits: 4 })}
-          {slowdown > 1 ? ` (${formatNumber(slowdown, { digits: 3 })}× slow motion)` : ''}. Frame times use the capture rate; check it
+          The file plays at {fps(clip.containerFps)}, but you stated it was captured at {fps(clip.captureFps)}
+          {slowdown > 1 ? ` (${Number(slowdown.toFixed(2))}× slow motion)` : ''}. Frame times use the capture rate; check it
           against the camera’s setting.
         </p>
       )}
       <KeyValueList
         items={[
-          { label: 'Capture rate (stated)', value: formatQuantity(clip.captureFps, 'fps', { digits: 5 }), numeric: true },
-          { label: 'Container rate (file)', value: formatQuantity(clip.containerFps, 'fps', { digits: 5 }), numeric: true },
+          { label: 'Capture rate (stated)', value: fps(clip.captureFps), numeric: true },
+          { label: 'Container rate (file)', value: fps(clip.containerFps), numeric: true },
           { label: 'Frame interval', value: formatQuantity(1000 / clip.captureFps, 'ms', { digits: 4 }), numeric: true },
           { label: 'Frames in file', value: clip.frameCount, numeric: true },
           { label: 'Real duration', value: formatQuantity(clip.frameCount / clip.captureFps, 's', { digits: 4 }), numeric: true },
@@ -51,9 +58,9 @@ export function TimeBasePanel({ teamId, clip, frames, canEdit }: { teamId: strin
           { label: 'Video', value: `${clip.codec}, ${clip.frameWidth}×${clip.frameHeight}${clip.rotationDeg ? `, turned ${clip.rotationDeg}°` : ''}`, numeric: true },
         ]}
       />
-      {clip.warnings.length > 0 && (
+      {warnings.length > 0 && (
         <ul className="flex flex-col gap-1" aria-label="Time-base warnings">
-          {clip.warnings.map((w) => (
+          {warnings.map((w) => (
             <li key={w.code + w.message} className="rounded-md border border-signal/50 bg-signal-light/30 px-3 py-1.5 text-micro text-ink">
               {w.message}
             </li>

@@ -52,7 +52,7 @@ export function ShotDetailPage({ clipPanel }: ShotDetailPageProps) {
           )
         }
       />
-      <div className="grid gap-4 lg:grid-cols-[minmax(0,20rem)_minmax(0,1fr)]">
+      <div className="grid items-start gap-4 lg:grid-cols-[minmax(0,20rem)_minmax(0,1fr)]">
         <Card title="Conditions" subtitle="As recorded at the launcher">
           <KeyValueList
             items={[
