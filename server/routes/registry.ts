@@ -18,6 +18,7 @@ import { trackRoutes } from './tracks';
 import { markRoutes } from './marks';
 import { frameSnapRoutes } from './frame-snap';
 import { fitRoutes } from './fits';
+import { presetRoutes } from './presets';
 
 /** Each resource declares its routes in its own file; this is the order they are mounted. */
 export function registerAllRoutes(api: RouteTable, deps: AppDeps): void {
@@ -39,4 +40,5 @@ export function registerAllRoutes(api: RouteTable, deps: AppDeps): void {
   markRoutes(api.section('marks'), deps);
   frameSnapRoutes(api.section('marks'), deps);
   fitRoutes(api.section('fits'), deps);
+  presetRoutes(api.section('presets'), deps);
 }
