@@ -1,7 +1,18 @@
 import { describe, expect, it } from 'vitest';
-import { Solver } from 'odex';
+import { createRequire } from 'node:module';
 import { flightDerivative, simulateTrajectory, PositionSampler } from '../../../shared/physics/flight';
 import { integrateDp45 } from '../../../shared/physics/dp45';
+
+// odex ships its TypeScript source next to the JS, and a static import would make
+// tsc type-check that source (it does not pass strict mode). Load it at run time
+// with a minimal local type instead.
+interface OdexSolver {
+  absoluteTolerance: number;
+  relativeTolerance: number;
+  maxSteps: number;
+  solve(f: (x: number, y: number[]) => number[], x0: number, y0: number[], x1: number): { y: number[] };
+}
+const { Solver } = createRequire(import.meta.url)('odex') as { Solver: new (n: number) => OdexSolver };
 
 const G = 9.80665;
 const tight = { rtol: 1e-13, atol: 1e-13 };
