@@ -75,6 +75,8 @@ describe('sign-in', () => {
     await expect(page.getByRole('link', { name: 'Go to my team' }).isVisible()).resolves.toBe(true);
     await page.goto(`${baseUrl}/mail`);
     await page.getByRole('heading', { level: 1, name: 'My mail' }).waitFor();
+    // The e2e server runs without SMTP, so the page must say mail is kept locally.
+    await page.getByText('No SMTP server is configured').waitFor();
     await screenshot(page, 'my-mail-analyst');
     await page.context().close();
   });

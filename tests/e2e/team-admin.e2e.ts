@@ -43,6 +43,15 @@ it('invites a tracker, shows the mail in the outbox, and the link makes a member
   await expect(row.getByText('Waiting').isVisible()).resolves.toBe(true);
   await screenshot(page, 'members-admin');
 
+  // Revoking asks first; Escape backs out and changes nothing (revoking for real comes at the end).
+  await row.getByRole('button', { name: `Revoke invitation for ${newcomer.email}` }).click();
+  const dialog = page.getByRole('dialog', { name: `Revoke the invitation for ${newcomer.email}?` });
+  await dialog.waitFor();
+  await screenshot(page, 'revoke-dialog');
+  await page.keyboard.press('Escape');
+  await dialog.waitFor({ state: 'hidden' });
+  await expect(row.getByText('Waiting').isVisible()).resolves.toBe(true);
+
   await nav.getByRole('link', { name: 'Outbox' }).click();
   const outbox = page.getByRole('table', { name: 'Team outbox' });
   await outbox.getByRole('row').filter({ hasText: newcomer.email }).first().getByRole('button').click();
@@ -68,6 +77,20 @@ it('invites a tracker, shows the mail in the outbox, and the link makes a member
   // Opening the same link again now says plainly that it was used.
   await guest.goto(`${baseUrl}${new URL(href!).pathname}`);
   await guest.getByRole('heading', { name: 'This invitation has already been used' }).waitFor();
+
+  // The admin invites someone else and revokes it through the confirm dialog.
+  const other = `second-${suffix}@kestrel.test`;
+  await page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Members' }).click();
+  const inviteAgain = page.getByRole('region', { name: 'Invite someone' });
+  await inviteAgain.getByLabel('E-mail').fill(other);
+  await inviteAgain.getByRole('button', { name: 'Send invitation' }).click();
+  await inviteAgain.getByRole('status').filter({ hasText: `Invitation sent to ${other}` }).waitFor();
+  const otherRow = page.getByRole('table', { name: 'Invitations' }).getByRole('row').filter({ hasText: other });
+  await otherRow.getByRole('button', { name: `Revoke invitation for ${other}` }).click();
+  await page.getByRole('dialog').getByRole('button', { name: 'Revoke', exact: true }).click();
+  await otherRow.getByText('Revoked').waitFor();
+  // The newcomer is now listed as a member, with the invited role.
+  await expect(page.getByLabel(`Role of ${newcomer.name}`).inputValue()).resolves.toBe('tracker');
 
   await page.context().close();
   await guest.context().close();

@@ -221,12 +221,14 @@ function Pager({ page, pageSize, total, onPageChange }: ServerPagination) {
   const pages = Math.max(1, Math.ceil(total / pageSize));
   const first = total === 0 ? 0 : (page - 1) * pageSize + 1;
   const last = Math.min(total, page * pageSize);
+  // Nothing to page through: the empty state or the rows say it all.
+  if (total === 0 && page === 1) return null;
   return (
     <nav aria-label="Pages" className="flex items-center justify-between gap-4 text-micro text-ink-soft">
       <span className="tabular-nums">
         {first}–{last} of {total}
       </span>
-      <div className="flex items-center gap-2">
+      <div className={cx('flex items-center gap-2', pages === 1 && page === 1 && 'hidden')}>
         <Button size="sm" variant="secondary" disabled={page <= 1} onClick={() => onPageChange(page - 1)}>
           Previous
         </Button>

@@ -27,8 +27,8 @@ export function MailTable({ caption, messages, loading, pagination, selectedId, 
           cell: (info) => <span className="tabular-nums whitespace-nowrap text-ink-soft">{formatDateTime(info.getValue())}</span>,
         }),
         ...(showRecipient
-          ? [col.accessor('to', { header: 'To', cell: (info) => <span className="break-all">{info.getValue()}</span> })]
-          : [col.accessor('from', { header: 'From', cell: (info) => <span className="break-all">{info.getValue()}</span> })]),
+          ? [col.accessor('to', { header: 'To', cell: (info) => <span className="whitespace-nowrap">{info.getValue()}</span> })]
+          : [col.accessor('from', { header: 'From', cell: (info) => <span className="whitespace-nowrap">{info.getValue()}</span> })]),
         col.accessor('subject', {
           header: 'Subject',
           cell: (info) => (
