@@ -2,16 +2,18 @@
 // units (through the clip's current calibration and frame times), the shot's
 // conditions, the projectile and launcher. Returns the snapshot that is stored
 // with the fit; its `fitInput` is what fitShot sees.
-import { and, asc, desc, eq, inArray } from 'drizzle-orm';
+import { and, asc, eq } from 'drizzle-orm';
 import { airForFit } from '../../shared/fits/air-conditions';
 import type { FitInputSnapshot, SnapshotMark } from '../../shared/fits/snapshot';
 import { buildCalibrationTransform, type CalibrationGeometry } from '../../shared/geometry/calibration-transform';
 import type { FitShotInput } from '../../shared/physics/types';
 import type { Db } from '../db/client';
-import { clipFrames, clips } from '../db/schema/clips';
-import { calibrations, marks, tracks } from '../db/schema/marking';
+import { clips } from '../db/schema/clips';
+import { marks, tracks } from '../db/schema/marking';
 import { launchers, projectiles, shots } from '../db/schema/records';
 import { notFound, unprocessable } from '../http/problem';
+import { calibrationGeometryOf, currentCalibrationRow } from '../marking/calibration-records';
+import { loadFrameTimes } from '../marking/frame-times';
 
 /**
  * Standard uncertainties of the projectile record when it states none.
@@ -20,50 +22,6 @@ import { notFound, unprocessable } from '../http/problem';
  */
 export const DEFAULT_MASS_SIGMA_KG = 1e-4;
 export const DEFAULT_DIAMETER_SIGMA_M = 5e-5;
-
-type CalibrationRow = typeof calibrations.$inferSelect;
-
-/** The stored calibration columns as the geometry the shared transform takes (docs/marking-api.md). */
-export function calibrationGeometry(row: CalibrationRow): CalibrationGeometry {
-  const level: CalibrationGeometry['level'] =
-    row.levelKind === 'line'
-      ? { kind: 'line', p1: { u: row.levelP1UPx!, v: row.levelP1VPx! }, p2: { u: row.levelP2UPx!, v: row.levelP2VPx! } }
-      : { kind: 'angle', rollDeg: row.levelAngleDeg ?? row.rollDeg };
-  return {
-    scale: {
-      p1: { u: row.scaleP1UPx, v: row.scaleP1VPx },
-      p2: { u: row.scaleP2UPx, v: row.scaleP2VPx },
-      lengthM: row.lengthM,
-      lengthTolM: row.lengthTolM,
-      endpointSigmaPx: row.endpointSigmaPx,
-    },
-    origin: { u: row.originUPx, v: row.originVPx },
-    level,
-    downrange: row.downrange,
-    plane: row.planeCorrection
-      ? { corners: row.planeCorrection.corners, widthM: row.planeCorrection.widthM, heightM: row.planeCorrection.heightM }
-      : null,
-  };
-}
-
-export async function currentCalibration(db: Db, clipId: string): Promise<CalibrationRow | null> {
-  const [row] = await db.select().from(calibrations).where(eq(calibrations.clipId, clipId)).orderBy(desc(calibrations.version)).limit(1);
-  return row ?? null;
-}
-
-/** Frame times of the clip: the frame table where extracted, else frame / capture rate. */
-async function frameTimes(db: Db, clip: { id: string; captureFps: number }, frameNumbers: number[]): Promise<Map<number, number>> {
-  const times = new Map<number, number>();
-  if (frameNumbers.length > 0) {
-    const rows = await db
-      .select({ frameNumber: clipFrames.frameNumber, tS: clipFrames.tS })
-      .from(clipFrames)
-      .where(and(eq(clipFrames.clipId, clip.id), inArray(clipFrames.frameNumber, frameNumbers)));
-    for (const r of rows) times.set(r.frameNumber, r.tS);
-  }
-  for (const f of frameNumbers) if (!times.has(f) && clip.captureFps > 0) times.set(f, f / clip.captureFps);
-  return times;
-}
 
 export async function buildFitSnapshot(db: Db, teamId: string, trackId: string): Promise<FitInputSnapshot> {
   const [track] = await db.select().from(tracks).where(and(eq(tracks.id, trackId), eq(tracks.teamId, teamId)));
@@ -77,9 +35,10 @@ export async function buildFitSnapshot(db: Db, teamId: string, trackId: string):
   const [projectile] = await db.select().from(projectiles).where(eq(projectiles.id, shot.projectileId));
   if (!projectile) throw unprocessable('The shot’s projectile no longer exists.');
   const [launcher] = shot.launcherId ? await db.select().from(launchers).where(eq(launchers.id, shot.launcherId)) : [];
-  const calibration = await currentCalibration(db, clip.id);
+  // The same calibration and frame times the marks API shows metres with (server/marking).
+  const calibration = await currentCalibrationRow(db, clip.id);
   if (!calibration) throw unprocessable('The clip is not calibrated: set scale, origin and level first.');
-  const geometry = calibrationGeometry(calibration);
+  const geometry = calibrationGeometryOf(calibration);
   const transform = buildCalibrationTransform(geometry);
 
   const markRows = await db.select().from(marks).where(eq(marks.trackId, track.id)).orderBy(asc(marks.frameNumber));
@@ -94,11 +53,11 @@ export async function buildFitSnapshot(db: Db, teamId: string, trackId: string):
     ? await db.select().from(marks).where(eq(marks.trackId, muzzleTrack.id)).orderBy(asc(marks.frameNumber)).limit(1)
     : [];
 
-  const times = await frameTimes(db, clip, markRows.map((m) => m.frameNumber));
+  const timeOf = await loadFrameTimes(db, clip, markRows.map((m) => m.frameNumber));
   const snapshotMarks: SnapshotMark[] = [];
   for (const m of markRows) {
-    const tS = times.get(m.frameNumber);
-    if (tS === undefined) throw unprocessable(`Frame ${m.frameNumber} has no time: the clip has no frame table and no capture rate.`);
+    const tS = timeOf(m.frameNumber);
+    if (tS === null) throw unprocessable(`Frame ${m.frameNumber} has no time: the clip has no frame table and no capture rate.`);
     const w = transform.imageToWorld({ u: m.uPx, v: m.vPx });
     snapshotMarks.push({ frameNumber: m.frameNumber, tS, uPx: m.uPx, vPx: m.vPx, xM: w.x, yM: w.y });
   }

@@ -48,8 +48,8 @@ it('the engineer approves a fit and the analyst is told', async () => {
   expect(await dev.locator('[data-chart="trajectory"] .recharts-line path.recharts-curve').nth(1).getAttribute('stroke-dasharray')).toBe('6 4');
   expect(await dev.locator('[data-chart="trajectory"] .recharts-scatter-symbol').count()).toBeGreaterThan(5);
   expect(await dev.locator('[data-chart="residuals"] .recharts-scatter-symbol').count()).toBeGreaterThan(5);
-  await dev.locator('[data-chart="overlay"] canvas').first().waitFor();
   await screenshot(dev, 'fit-review-before');
+  await dev.locator('[data-chart="overlay"] canvas').first().waitFor();
 
   await dev.getByLabel('Note').fill('Residuals flat, drag resolved. Approved for the preset.');
   await dev.getByRole('button', { name: 'Approve fit' }).click();

@@ -1,6 +1,6 @@
 import { useEffect, useMemo, useRef, useState, type ReactNode } from 'react';
 import { Circle, Image as KonvaImage, Layer, Line, Stage } from 'react-konva';
-import { buildCalibrationTransform } from '@shared/geometry/calibration-transform';
+import { buildCalibrationTransform, type CalibrationTransform } from '@shared/geometry/calibration-transform';
 import type { FitDetail } from '@shared/schemas/fits';
 import { frameImageUrl } from '../api/keys';
 import type { FitPlots } from '../hooks/use-fit-plots';
@@ -55,12 +55,17 @@ export function FrameOverlay({ teamId, fit, plots }: { teamId: string; fit: FitD
     }
   }, [fit.snapshot.calibration.geometry]);
 
+  // One wrapper element throughout: the size observer stays attached to it.
   let body: ReactNode = null;
   if (failed) body = <p className="text-body text-ink-soft">The frame image could not be loaded, so the overlay is not shown.</p>;
   else if (!transform) body = <p className="text-body text-ink-soft">The stored calibration cannot be drawn.</p>;
   else if (!image || width === 0) body = <p className="text-body text-ink-faint">Loading frame {frame}…</p>;
-  if (body || !image || !transform) return <div ref={ref}>{body}</div>;
+  else body = <OverlayStage image={image} width={width} transform={transform} fit={fit} plots={plots} frame={frame} />;
+  return <div ref={ref}>{body}</div>;
+}
 
+function OverlayStage({ image, width, transform, fit, plots, frame }: { image: HTMLImageElement; width: number; transform: CalibrationTransform; fit: FitDetail; plots: FitPlots; frame: number }) {
+  const marks = fit.snapshot.marks;
   const scale = Math.min(2, width / image.naturalWidth);
   const toPoints = (pts: { xM: number; yM: number }[]) =>
     pts.flatMap((p) => {
@@ -68,7 +73,7 @@ export function FrameOverlay({ teamId, fit, plots }: { teamId: string; fit: FitD
       return [q.u * scale, q.v * scale];
     });
   return (
-    <figure ref={ref} aria-label={`Fit overlaid on frame ${frame}`} data-chart="overlay">
+    <figure aria-label={`Fit overlaid on frame ${frame}`} data-chart="overlay">
       <Stage width={image.naturalWidth * scale} height={image.naturalHeight * scale}>
         <Layer listening={false}>
           <KonvaImage image={image} width={image.naturalWidth * scale} height={image.naturalHeight * scale} />
