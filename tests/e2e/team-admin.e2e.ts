@@ -27,6 +27,14 @@ it('invites a tracker, shows the mail in the outbox, and the link makes a member
   await nav.getByRole('link', { name: 'Members' }).click();
   await page.getByRole('table', { name: 'Members' }).getByRole('button', { name: `Remove ${demoPerson('analyst').displayName}` }).waitFor();
 
+  // Sorting by a header reorders the rows and says so to assistive tech (aria-sort).
+  const membersTable = page.getByRole('table', { name: 'Members' });
+  const emails = () => membersTable.locator('tbody tr td:nth-child(2)').allTextContents();
+  const before = await emails();
+  await membersTable.getByRole('button', { name: 'E-mail' }).click();
+  await expect(membersTable.getByRole('columnheader', { name: 'E-mail' }).getAttribute('aria-sort')).resolves.toBe('ascending');
+  await expect(emails()).resolves.toEqual([...before].sort((a, b) => a.localeCompare(b)));
+
   // The seeded team has one admin: demoting her must be refused, readably.
   await page.getByLabel(`Role of ${admin.displayName}`).selectOption('analyst');
   const refusal = page.getByRole('alert').filter({ hasText: 'last admin' });

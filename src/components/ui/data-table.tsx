@@ -76,8 +76,13 @@ export interface DataTableProps<T extends RowData> {
   /** Placeholder of the filter box; false hides it. Filters only the rows loaded in the browser. */
   filterPlaceholder?: string | false;
   initialSorting?: SortingState;
-  /** Pages served by the API; sorting and filtering then apply to the current page only. */
+  /** Pages served by the API; client sorting and filtering then apply to the current page only. */
   pagination?: ServerPagination;
+  /**
+   * Sorting done by the API: pass the current order and a setter that refetches.
+   * The table then only shows the header state and keeps the rows in the order given.
+   */
+  serverSorting?: { sorting: SortingState; onSortingChange: (sorting: SortingState) => void };
   /** Extra controls on the toolbar's right, next to the filter. */
   toolbar?: ReactNode;
   /** Highlights one row, e.g. the message open in a viewer. */
@@ -97,11 +102,13 @@ export function DataTable<T extends RowData>({
   filterPlaceholder = 'Filter…',
   initialSorting = EMPTY_SORTING,
   pagination,
+  serverSorting,
   toolbar,
   selectedRowId,
   dense = false,
 }: DataTableProps<T>) {
-  const [sorting, setSorting] = useState<SortingState>(initialSorting);
+  const [localSorting, setLocalSorting] = useState<SortingState>(initialSorting);
+  const sorting = serverSorting?.sorting ?? localSorting;
   const [globalFilter, setGlobalFilter] = useState('');
   const table = useTable({
     features: dataTableFeatures,
@@ -109,7 +116,12 @@ export function DataTable<T extends RowData>({
     data: data as T[],
     getRowId: getRowId ? (row: T) => getRowId(row) : undefined, // row ids let selection survive re-sorting
     state: { sorting, globalFilter },
-    onSortingChange: setSorting,
+    onSortingChange: (updater) => {
+      const next = typeof updater === 'function' ? updater(sorting) : updater;
+      if (serverSorting) serverSorting.onSortingChange(next);
+      else setLocalSorting(next);
+    },
+    manualSorting: serverSorting !== undefined,
     onGlobalFilterChange: setGlobalFilter,
     globalFilterFn: 'includesString',
   });
