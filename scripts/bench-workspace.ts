@@ -116,21 +116,20 @@ export async function benchWorkspace(baseUrl?: string): Promise<string> {
     const missed = samples.filter((s, i) => i > 0 && s.frameNumber === samples[i - 1].frameNumber).length;
 
     // Baseline: a key the workspace ignores, keydown to the next animation frame.
-    const baseline = await page.evaluate(async (steps) => {
-      const out: number[] = [];
-      for (let i = 0; i < steps; i++) {
-        const t = await new Promise<number>((resolve) => {
-          const onKey = (e: KeyboardEvent) => {
-            window.removeEventListener('keydown', onKey);
-            requestAnimationFrame(() => resolve(performance.now() - e.timeStamp));
-          };
-          window.addEventListener('keydown', onKey);
-          window.dispatchEvent(new KeyboardEvent('keydown', { key: 'F13' }));
-        });
-        out.push(t);
-      }
-      return out;
-    }, STEPS);
+    // Baseline through the same input path: a key the workspace ignores ("q"),
+    // keydown to the next animation frame. Passed as text: tsx would wrap
+    // named functions in a helper the page does not have.
+    await page.evaluate(`(() => {
+      window.__arcbenchBaseline = [];
+      window.addEventListener('keydown', (e) => {
+        if (e.key === 'q') requestAnimationFrame(() => window.__arcbenchBaseline.push(performance.now() - e.timeStamp));
+      });
+    })()`);
+    for (let i = 0; i < STEPS; i++) {
+      await page.keyboard.press('q');
+      await page.waitForFunction((n) => ((window as unknown as { __arcbenchBaseline: number[] }).__arcbenchBaseline.length >= n), i + 1);
+    }
+    const baseline = (await page.evaluate('window.__arcbenchBaseline')) as number[];
 
     const drawn = samples.map((s) => s.drawnAt - s.keyAt);
     const painted = samples.map((s) => s.paintedAt - s.keyAt);

@@ -156,5 +156,38 @@ it('an analyst calibrates, a tracker marks ten frames, and after a reload the le
     expect(m.yM).toBeCloseTo(w.y, 6);
   }
   await screenshot(t, 'workspace-after-reload');
+
+  // ---- two people on one frame: the analyst moves frame 3's mark while the
+  // tracker's page still holds the old one; the tracker's later click gets a
+  // conflict, is told who changed it, and can insist on theirs.
+  const analystAgain = await signedInContext(demoPerson('analyst').email);
+  const b = analystAgain.page;
+  await b.goto(workspaceUrl);
+  await waitForShownFrame(b, 0);
+  await b.getByLabel(/Snap to centre/).uncheck();
+  await b.getByRole('table', { name: 'Marks ledger' }).getByRole('button', { name: '3', exact: true }).click();
+  await waitForShownFrame(b, 3);
+  const analystClick = await clickFramePixel(b, { u: truth.frames[3].uPx + 12, v: truth.frames[3].vPx + 12 });
+  await b.getByTestId('save-status').getByText('All marks saved.').waitFor();
+
+  await ledger.getByRole('button', { name: '3', exact: true }).click();
+  await waitForShownFrame(t, 3);
+  const trackerClick = await clickFramePixel(t, { u: truth.frames[3].uPx - 12, v: truth.frames[3].vPx - 12 });
+  const conflict = t.getByRole('alert').filter({ hasText: 'Frame 3: changed by Tomas Reyes' });
+  await conflict.waitFor();
+  await screenshot(t, 'workspace-conflict');
+  await conflict.getByRole('button', { name: 'Use mine' }).click();
+  await t.getByTestId('save-status').getByText('All marks saved.').waitFor();
+
+  const afterConflict = await json<{ marks: { frameNumber: number; uPx: number; vPx: number; updatedBy: { displayName: string } | null }[] }>(
+    await t.request.get(`${baseUrl}/api/teams/${teamId}/tracks/${tracks.tracks[0].id}/marks`),
+  );
+  const frame3 = afterConflict.marks.find((m) => m.frameNumber === 3)!;
+  expect(frame3.uPx).toBeCloseTo(trackerClick.u, 6);
+  expect(frame3.vPx).toBeCloseTo(trackerClick.v, 6);
+  expect(frame3.updatedBy?.displayName).toBe('Ines Varga');
+  expect(Math.hypot(frame3.uPx - analystClick.u, frame3.vPx - analystClick.v)).toBeGreaterThan(10);
+  expect(afterConflict.marks).toHaveLength(10);
+  await analystAgain.context.close();
   await tracker.context.close();
 });

@@ -69,7 +69,7 @@ export function CalibrationCard({ editor, teamId, clipId, saved, transform }: Ca
             variant="primary"
             disabled={!body || !unsaved || transform?.ok === false}
             busy={create.isPending}
-            onClick={() => body && create.mutate(body)}
+            onClick={() => body && create.mutate(body, { onSuccess: (c) => editor.replaceCalibration(calibrationToDraft(c)) })}
           >
             Save as version {(saved?.version ?? 0) + 1}
           </Button>

@@ -54,6 +54,28 @@ export function FrameStage({ editor, frameCache, imageSize, transform, preview, 
 
   useEffect(() => frameCache.onReady((n) => n === editor.getState().frameNumber && frameArrived()), [frameCache, editor]);
 
+  // Fast path for stepping: when the frame number changes and the frame is
+  // decoded, swap the bitmap and draw the frame layer right inside the key
+  // handler, so it is on screen at the very next paint. React re-renders the
+  // rest (overlay, readouts) as usual; its later update of the same image is
+  // a no-op.
+  const imageNode = useRef<Konva.Image>(null);
+  useEffect(
+    () =>
+      editor.subscribe(() => {
+        const n = editor.getState().frameNumber;
+        if (lastShown.current?.frameNumber === n) return;
+        const image = frameCache.get(n);
+        const node = imageNode.current;
+        const layer = frameLayer.current;
+        if (!image || !node || !layer) return;
+        lastShown.current = { frameNumber: n, image };
+        node.image(image);
+        layer.draw();
+      }),
+    [editor, frameCache],
+  );
+
   useEffect(() => {
     const index = frames.findIndex((f) => f.frameNumber === frameNumber);
     if (index >= 0) frameCache.prefetchAround(frames.map((f) => f.frameNumber), index);
@@ -89,7 +111,8 @@ export function FrameStage({ editor, frameCache, imageSize, transform, preview, 
     return () => {
       layer.off('draw', onDraw);
     };
-  }, [editor]);
+    // The layer exists only once the box has a size.
+  }, [editor, size.width > 0]); // eslint-disable-line react-hooks/exhaustive-deps
 
   const stagePoint = (stage: Konva.Stage | null) => stage?.getPointerPosition() ?? null;
 
@@ -156,7 +179,7 @@ export function FrameStage({ editor, frameCache, imageSize, transform, preview, 
       {size.width > 0 && (
         <Stage width={size.width} height={size.height} onMouseDown={onMouseDown} onMouseMove={onMouseMove} onMouseUp={onMouseUp} onWheel={onWheel}>
           <Layer ref={frameLayer} listening={false} imageSmoothingEnabled={view.zoom < 2}>
-            {shown && <KonvaImage image={shown.image} x={view.panX} y={view.panY} scaleX={view.zoom} scaleY={view.zoom} />}
+            {shown && <KonvaImage ref={imageNode} image={shown.image} x={view.panX} y={view.panY} scaleX={view.zoom} scaleY={view.zoom} />}
           </Layer>
           <Layer listening={false} imageSmoothingEnabled={false}>
             <CalibrationOverlay draft={draft} view={view} activeTool={activeTool} toolStates={toolStates} />

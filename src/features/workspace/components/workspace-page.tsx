@@ -117,7 +117,8 @@ function Workspace({ teamId, clipId }: { teamId: string; clipId: string }) {
       <ToolPalette editor={editor} />
       <div className="grid gap-3 lg:grid-cols-[minmax(0,1fr)_22rem]">
         <div className="flex min-w-0 flex-col gap-2">
-          <div className="h-[64vh]">
+          {/* As tall as the frame's shape asks for, up to most of the window. */}
+          <div className="max-h-[72vh] w-full" style={{ aspectRatio: `${clip.frameWidth} / ${clip.frameHeight}` }}>
             <FrameStage
               editor={editor}
               frameCache={frameCache}

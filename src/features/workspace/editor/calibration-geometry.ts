@@ -56,6 +56,8 @@ export function transformOfDraft(draft: CalibrationDraft): TransformResult {
   }
 }
 
+/** Same calibration, reading "no level given" as the 0° roll it is saved as. */
 export function sameDraft(a: CalibrationDraft, b: CalibrationDraft): boolean {
-  return JSON.stringify(a) === JSON.stringify(b);
+  const g = (d: CalibrationDraft) => JSON.stringify(draftToGeometry(d) ?? d);
+  return g(a) === g(b);
 }

@@ -234,14 +234,18 @@ export function createEditor(options: EditorOptions = {}) {
 
   const editor = {
     getState: () => state,
-    subscribe(listener: () => void) {
+    subscribe(listener: () => void): () => void {
       listeners.add(listener);
-      return () => listeners.delete(listener);
+      return () => {
+        listeners.delete(listener);
+      };
     },
     /** Listen to every mark change the person makes (edit, undo, redo) to save it. */
-    onMarkWrite(writer: (write: MarkWrite) => void) {
+    onMarkWrite(writer: (write: MarkWrite) => void): () => void {
       writers.add(writer);
-      return () => writers.delete(writer);
+      return () => {
+        writers.delete(writer);
+      };
     },
 
     load(data: EditorLoad) {
@@ -359,6 +363,11 @@ export function createEditor(options: EditorOptions = {}) {
     setCalibration(patch: Partial<CalibrationDraft>) {
       if (!state.permissions.canCalibrate) return;
       commit({ kind: 'calibration', before: state.calibrationDraft, after: { ...state.calibrationDraft, ...patch } });
+    },
+
+    /** The calibration as saved on the server (after saving a version): shown as is, outside history. */
+    replaceCalibration(draft: CalibrationDraft) {
+      set({ ...state, calibrationDraft: draft });
     },
 
     /** Undo the last change; the view goes to the frame it happened on. */
