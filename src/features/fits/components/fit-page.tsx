@@ -16,6 +16,7 @@ import { FlowCard } from './flow-card';
 import { FrameOverlay } from './frame-overlay';
 import { InputsCard } from './inputs-card';
 import { LauncherCard } from './launcher-card';
+import { PresetForecastCard } from './preset-forecast-card';
 import { ReproduceButton } from './reproduce-button';
 import { ResidualChart } from './residual-chart';
 import { ReviewPanel } from './review-panel';
@@ -79,6 +80,7 @@ export function FitPage() {
         <FlowCard result={fit.result} />
         <LauncherCard result={fit.result} snapshot={fit.snapshot} />
         <InputsCard fit={fit} />
+        <PresetForecastCard teamId={teamId} fit={fit} />
       </div>
       <Card title="Exports and checks">
         <div className="flex flex-wrap items-center gap-3 text-body">
