@@ -33,9 +33,11 @@ export function niceTicks(lo: number, hi: number, target = 5): number[] {
   const raw = (hi - lo) / target;
   const mag = 10 ** Math.floor(Math.log10(raw));
   const step = [1, 2, 5, 10].map((m) => m * mag).find((s) => s >= raw) ?? 10 * mag;
+  // From the step at or below lo to the step at or above hi, so the axes hold every point.
+  const first = Math.floor(lo / step + 1e-9);
+  const last = Math.ceil(hi / step - 1e-9);
   const ticks: number[] = [];
-  for (let v = Math.floor(lo / step) * step; v <= hi + step * 1e-9; v += step) ticks.push(Number(v.toPrecision(12)));
-  if (ticks[0] > lo) ticks.unshift(ticks[0] - step);
+  for (let i = first; i <= last; i++) ticks.push(Number((i * step).toPrecision(12)));
   return ticks;
 }
 
