@@ -26,7 +26,8 @@ describe('sign-in', () => {
     const baseUrl = inject('baseUrl');
     await signIn(page, baseUrl, analyst.email, DEMO_PASSWORD);
     await page.waitForURL(/\/t\/[0-9a-f-]{36}$/);
-    await expect(page.getByRole('heading', { level: 1 }).textContent()).resolves.toBe(DEMO_TEAM.name);
+    // Wait for the heading itself: the URL changes a moment before the new page renders.
+    await page.getByRole('heading', { level: 1, name: DEMO_TEAM.name, exact: true }).waitFor();
     const role = page.getByRole('region', { name: 'Your role' });
     await expect(role.getByText('Analyst', { exact: true }).isVisible()).resolves.toBe(true);
     await expect(page.getByText(DEMO_TEAM.siteName).first().isVisible()).resolves.toBe(true);

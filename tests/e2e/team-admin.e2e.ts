@@ -6,7 +6,8 @@ import { launchBrowser, screenshot, signIn } from '../support/browser';
 // An admin's round trip through the real server and the local mail fake:
 // invite a newcomer from the members page, read the invitation in the team
 // outbox, follow its link in a fresh browser, create the account and arrive
-// in the team with the invited role. The last-admin rule is shown in words.
+// in the team with the invited role. The last-admin rule is shown in words;
+// a person removed from their only team can start their own.
 let browser: Browser;
 beforeAll(async () => {
   browser = await launchBrowser();
@@ -79,7 +80,8 @@ it('invites a tracker, shows the mail in the outbox, and the link makes a member
   await screenshot(guest, 'invitation-accept');
   await guest.getByRole('button', { name: 'Create account and join' }).click();
   await guest.waitForURL(/\/t\/[0-9a-f-]{36}$/);
-  await expect(guest.getByRole('heading', { level: 1 }).textContent()).resolves.toBe(DEMO_TEAM.name);
+  // Wait for the heading itself: the URL changes a moment before the new page renders.
+  await guest.getByRole('heading', { level: 1, name: DEMO_TEAM.name, exact: true }).waitFor();
   await expect(guest.getByRole('region', { name: 'Your role' }).getByText('Tracker', { exact: true }).isVisible()).resolves.toBe(true);
 
   // Opening the same link again now says plainly that it was used.
@@ -99,6 +101,20 @@ it('invites a tracker, shows the mail in the outbox, and the link makes a member
   await otherRow.getByText('Revoked').waitFor();
   // The newcomer is now listed as a member, with the invited role.
   await expect(page.getByLabel(`Role of ${newcomer.name}`).inputValue()).resolves.toBe('tracker');
+
+  // Removing the newcomer (confirmed in a dialog) leaves them with no team: "/" then offers to start one.
+  await page.getByRole('button', { name: `Remove ${newcomer.name}` }).click();
+  await page.getByRole('dialog').getByRole('button', { name: 'Remove', exact: true }).click();
+  await page.getByRole('button', { name: `Remove ${newcomer.name}` }).waitFor({ state: 'detached' });
+  await guest.goto(`${baseUrl}/`);
+  await guest.getByRole('heading', { level: 1, name: 'No team yet' }).waitFor();
+  await screenshot(guest, 'no-team-yet');
+  const ownTeam = `Rui test rig ${suffix}`;
+  await guest.getByLabel('Team name').fill(ownTeam);
+  await guest.getByLabel('Test site').fill('Workshop yard');
+  await guest.getByRole('button', { name: 'Create team' }).click();
+  await guest.getByRole('heading', { level: 1, name: ownTeam }).waitFor();
+  await expect(guest.getByRole('region', { name: 'Your role' }).getByText('Admin', { exact: true }).isVisible()).resolves.toBe(true);
 
   await page.context().close();
   await guest.context().close();
