@@ -9,6 +9,8 @@ export interface NavEntry {
   roles?: readonly Role[];
   /** Highlight only on an exact match (for the team home, which prefixes every team page). */
   end?: boolean;
+  /** 'team' puts running-the-team pages under their own heading; work pages leave it out. */
+  section?: 'work' | 'team';
 }
 
 // Features append their entries here (one line each, in reading order of the
@@ -19,8 +21,10 @@ export const NAV_ENTRIES: NavEntry[] = [
   { label: 'Series', to: (teamId) => `/t/${teamId}/series` },
   { label: 'Launchers & projectiles', to: (teamId) => `/t/${teamId}/kit` },
   { label: 'Shot results', to: (teamId) => `/t/${teamId}/results` },
-  { label: 'Members', to: (teamId) => `/t/${teamId}/members` },
-  { label: 'Outbox', to: (teamId) => `/t/${teamId}/outbox`, roles: CAN.manageMembers },
+  { label: 'Presets', to: (teamId) => `/t/${teamId}/presets` },
+  { label: 'Forecast', to: (teamId) => `/t/${teamId}/forecast` },
+  { label: 'Members', to: (teamId) => `/t/${teamId}/members`, section: 'team' },
+  { label: 'Outbox', to: (teamId) => `/t/${teamId}/outbox`, roles: CAN.manageMembers, section: 'team' },
 ];
 
 export function navEntriesFor(role: Role): NavEntry[] {

@@ -17,6 +17,9 @@ import { ShotsPage } from '@/features/records/components/shots-page';
 import { FitPage } from '@/features/fits/components/fit-page';
 import { ShotFitsPage } from '@/features/fits/components/shot-fits-page';
 import { ShotOverviewPage } from '@/features/fits/components/shot-overview-page';
+import { PresetsPage } from '@/features/presets/components/presets-page';
+import { PresetPage } from '@/features/presets/components/preset-page';
+import { ForecastPage } from '@/features/presets/components/forecast-page';
 import { CAN } from '@shared/roles';
 import { AppShell } from './app-shell';
 import { HomeRedirect } from './home-redirect';
@@ -58,6 +61,9 @@ export function AppRouter() {
               <Route path="fits/:fitId" element={<FitPage />} />
               <Route path="shots/:shotId/fits" element={<ShotFitsPage />} />
               <Route path="results" element={<ShotOverviewPage />} />
+              <Route path="presets" element={<PresetsPage />} />
+              <Route path="presets/:presetId" element={<PresetPage />} />
+              <Route path="forecast" element={<ForecastPage />} />
             </Route>
             <Route path="*" element={<NotFoundPage />} />
           </Route>

@@ -1,0 +1,74 @@
+import { CartesianGrid, Legend, ReferenceLine, ResponsiveContainer, Scatter, ScatterChart, Tooltip, XAxis, YAxis } from 'recharts';
+import { Card } from '@/components/ui/card';
+import { FormError } from '@/components/ui/form-error';
+import { LoadingBlock } from '@/components/ui/spinner';
+import { useMeasuredVsForecast } from '../api/measured-vs-forecast';
+
+const COLOURS = { speed: '#1f7a72', range: '#d9822b', grid: '#e2dccf', ink: '#3d4a5c' } as const;
+
+function Parity({ title, unit, points, colour }: { title: string; unit: string; points: { forecast: number; measured: number; label: string }[]; colour: string }) {
+  const max = Math.max(1, ...points.flatMap((p) => [p.forecast, p.measured])) * 1.08;
+  return (
+    <figure aria-label={title} className="min-w-0 flex-1">
+      <figcaption className="mb-1 text-micro text-ink-faint">{title} — on the diagonal, the forecast matched</figcaption>
+      <ResponsiveContainer width="100%" height={260}>
+        <ScatterChart margin={{ top: 8, right: 16, bottom: 24, left: 8 }}>
+          <CartesianGrid stroke={COLOURS.grid} />
+          <XAxis type="number" dataKey="forecast" domain={[0, max]} tickFormatter={(v: number) => v.toFixed(0)} label={{ value: `forecast (${unit})`, position: 'insideBottom', offset: -12 }} />
+          <YAxis type="number" dataKey="measured" domain={[0, max]} tickFormatter={(v: number) => v.toFixed(0)} label={{ value: `measured (${unit})`, angle: -90, position: 'insideLeft' }} />
+          <Tooltip formatter={(v) => (typeof v === 'number' ? v.toFixed(2) : String(v))} />
+          <Legend verticalAlign="top" height={24} />
+          <ReferenceLine segment={[{ x: 0, y: 0 }, { x: max, y: max }]} stroke={COLOURS.ink} strokeDasharray="4 4" />
+          <Scatter name={title} data={points} fill={colour} isAnimationActive={false} />
+        </ScatterChart>
+      </ResponsiveContainer>
+    </figure>
+  );
+}
+
+/** Each approved shot of this launcher and projectile: what it did against what the preset says it should have done. */
+export function MeasuredVsForecastChart({ teamId, presetId, version }: { teamId: string; presetId: string; version?: number }) {
+  const q = useMeasuredVsForecast(teamId, presetId, version);
+  const rows = q.data?.rows ?? [];
+  const speeds = rows.filter((r) => r.forecastSpeedMps !== null).map((r) => ({ forecast: r.forecastSpeedMps!, measured: r.measuredSpeedMps, label: r.shotLabel }));
+  const ranges = rows.filter((r) => r.forecastRangeM !== null && r.tapeRangeM !== null).map((r) => ({ forecast: r.forecastRangeM!, measured: r.tapeRangeM!, label: r.shotLabel }));
+  return (
+    <Card title="Measured against forecast" subtitle={q.data ? `Forecast by version ${q.data.version} at each shot’s own pressure, elevation and air` : undefined}>
+      <FormError error={q.error} />
+      {q.isLoading && <LoadingBlock />}
+      {q.data && rows.length === 0 && <p className="text-body text-ink-soft">No approved shots of this launcher and projectile yet.</p>}
+      {rows.length > 0 && (
+        <>
+          <div className="flex flex-col gap-4 md:flex-row">
+            <Parity title="Launch speed" unit="m/s" points={speeds} colour={COLOURS.speed} />
+            <Parity title="Tape range" unit="m" points={ranges} colour={COLOURS.range} />
+          </div>
+          <table className="mt-3 w-full text-micro" aria-label="Measured and forecast per shot">
+            <thead>
+              <tr className="text-left text-ink-faint">
+                <th className="font-medium">Shot</th>
+                <th className="font-medium">speed measured / forecast (m/s)</th>
+                <th className="font-medium">range tape / forecast (m)</th>
+                <th className="font-medium">note</th>
+              </tr>
+            </thead>
+            <tbody>
+              {rows.map((r) => (
+                <tr key={r.fitId} className="border-t border-line tabular-nums">
+                  <td>{r.shotLabel}</td>
+                  <td>
+                    {r.measuredSpeedMps.toFixed(2)} ({r.measuredFrom}) / {r.forecastSpeedMps?.toFixed(2) ?? '—'}
+                  </td>
+                  <td>
+                    {r.tapeRangeM?.toFixed(1) ?? '—'} / {r.forecastRangeM?.toFixed(1) ?? '—'}
+                  </td>
+                  <td className="text-ink-faint">{r.note ?? ''}</td>
+                </tr>
+              ))}
+            </tbody>
+          </table>
+        </>
+      )}
+    </Card>
+  );
+}
