@@ -2,7 +2,7 @@ import { NavLink } from 'react-router';
 import { ROLE_LABELS } from '@shared/roles';
 import { cx } from '@/components/ui/cx';
 import type { TeamMembership } from '@/lib/use-me';
-import { navEntriesFor } from './nav';
+import { navEntriesFor, type NavEntry } from './nav';
 
 const linkClass = ({ isActive }: { isActive: boolean }) =>
   cx(
@@ -29,15 +29,13 @@ export function SideNav({ team }: { team: TeamMembership | undefined }) {
               You: <span className="font-medium text-signal-dark">{ROLE_LABELS[team.role]}</span>
             </p>
           </div>
-          <ul className="flex flex-col gap-0.5">
-            {navEntriesFor(team.role).map((entry) => (
-              <li key={entry.label}>
-                <NavLink to={entry.to(team.id)} end={entry.end} className={linkClass}>
-                  {entry.label}
-                </NavLink>
-              </li>
-            ))}
-          </ul>
+          <NavList entries={navEntriesFor(team.role).filter((e) => e.section !== 'team')} teamId={team.id} />
+        </div>
+      )}
+      {team && navEntriesFor(team.role).some((e) => e.section === 'team') && (
+        <div>
+          <p className="mb-1 px-3 text-micro font-medium uppercase tracking-wider text-ink-faint">Team</p>
+          <NavList entries={navEntriesFor(team.role).filter((e) => e.section === 'team')} teamId={team.id} />
         </div>
       )}
       <div>
@@ -56,5 +54,19 @@ export function SideNav({ team }: { team: TeamMembership | undefined }) {
         </ul>
       </div>
     </nav>
+  );
+}
+
+function NavList({ entries, teamId }: { entries: NavEntry[]; teamId: string }) {
+  return (
+    <ul className="flex flex-col gap-0.5">
+      {entries.map((entry) => (
+        <li key={entry.label}>
+          <NavLink to={entry.to(teamId)} end={entry.end} className={linkClass}>
+            {entry.label}
+          </NavLink>
+        </li>
+      ))}
+    </ul>
   );
 }
