@@ -21,6 +21,8 @@ export const NAV_ENTRIES: NavEntry[] = [
   { label: 'Series', to: (teamId) => `/t/${teamId}/series` },
   { label: 'Launchers & projectiles', to: (teamId) => `/t/${teamId}/kit` },
   { label: 'Shot results', to: (teamId) => `/t/${teamId}/results` },
+  { label: 'Presets', to: (teamId) => `/t/${teamId}/presets` },
+  { label: 'Forecast', to: (teamId) => `/t/${teamId}/forecast` },
   { label: 'Members', to: (teamId) => `/t/${teamId}/members`, section: 'team' },
   { label: 'Outbox', to: (teamId) => `/t/${teamId}/outbox`, roles: CAN.manageMembers, section: 'team' },
 ];
