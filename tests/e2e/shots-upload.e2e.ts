@@ -4,7 +4,8 @@
 // (captured at 240 fps, written to play at 30), follows the extraction to the
 // end and steps through the frames. Frame count and frame times are checked
 // against the generator's truth file; a frame's time is n / capture rate by
-// definition of a constant frame rate.
+// definition of a constant frame rate. On a throttled link the upload bar
+// shows bytes as they go, and cancelling stores nothing.
 import { mkdtempSync, writeFileSync } from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
@@ -77,7 +78,27 @@ it('creates a series and a shot, uploads a clip, watches extraction finish and s
   await expect(page.getByRole('alert').filter({ hasText: 'not a video' }).first().textContent()).resolves.toMatch(/notes\.mp4 is not a video/);
   expect(await (await page.request.get(`${base}/api/teams/${teamId}/shots/${shotId}/clips`)).json()).toEqual([]);
 
-  // The real clip.
+  // On a slow link the bar reports bytes as they go, and a cancelled upload stores nothing.
+  // Chromium's network emulation (DevTools protocol) throttles the upload to about 8 kB/s, slow enough that the cancel lands mid-way.
+  const cdp = await page.context().newCDPSession(page);
+  await cdp.send('Network.enable');
+  await cdp.send('Network.emulateNetworkConditions', { offline: false, latency: 20, downloadThroughput: -1, uploadThroughput: 8 * 1024 });
+  await page.getByLabel('Clip file').setInputFiles(clip.videoPath);
+  await page.getByLabel('Capture frame rate').fill(String(clip.truth.captureFps));
+  await page.getByRole('button', { name: 'Upload clip' }).click();
+  const bar = page.getByRole('progressbar', { name: 'Uploading' });
+  await page.waitForFunction(() => {
+    const el = document.querySelector('[role="progressbar"][aria-label="Uploading"]');
+    const now = Number(el?.getAttribute('aria-valuenow'));
+    return now > 0 && now < 100;
+  });
+  await expect(bar.getAttribute('aria-valuetext')).resolves.toMatch(/kB of 1\d\d(\.\d)?\skB/);
+  await page.getByRole('button', { name: 'Cancel upload' }).click();
+  await page.getByText('Upload cancelled; nothing was stored.').waitFor();
+  expect(await (await page.request.get(`${base}/api/teams/${teamId}/shots/${shotId}/clips`)).json()).toEqual([]);
+  await cdp.send('Network.emulateNetworkConditions', { offline: false, latency: 0, downloadThroughput: -1, uploadThroughput: -1 });
+
+  // The real clip, at full speed.
   await page.getByLabel('Clip file').setInputFiles(clip.videoPath);
   await page.getByLabel('Capture frame rate').fill(String(clip.truth.captureFps));
   await page.getByRole('button', { name: 'Upload clip' }).click();
