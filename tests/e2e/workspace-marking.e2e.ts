@@ -12,7 +12,8 @@ import type { Browser, BrowserContext, Page } from 'playwright-core';
 import { buildCalibrationTransform } from '../../shared/geometry/calibration-transform';
 import type { PixelPoint } from '../../shared/geometry/points';
 import { DEMO_PASSWORD, demoPerson } from '../../server/seed/demo-people';
-import { launchBrowser, screenshot, signIn } from '../support/browser';
+import path from 'node:path';
+import { ARTIFACTS_DIR, launchBrowser, screenshot, signIn } from '../support/browser';
 import { demoTeamId, jsonOf as json, uploadGeneratedClip } from '../support/generated-clip-upload';
 
 let browser: Browser;
@@ -84,6 +85,11 @@ it('an analyst calibrates, a tracker marks ten frames, and after a reload the le
   await lengthDialog.getByLabel('Length').fill(String(truth.scaleReference.lengthM));
   await lengthDialog.getByLabel('Tolerance (±)').fill('1');
   await lengthDialog.getByRole('button', { name: 'Set scale' }).click();
+  // The loupe follows the cursor over the frame.
+  await a.mouse.move(Math.round((await stageGeometry(a)).left + 300), Math.round((await stageGeometry(a)).top + 200));
+  await a.waitForFunction(() => document.querySelector<HTMLElement>('[data-testid="frame-stage"]')?.dataset.loupe === 'on');
+  const stageBox = (await a.getByTestId('frame-stage').boundingBox())!;
+  await a.screenshot({ path: path.join(ARTIFACTS_DIR, 'workspace-loupe.png'), clip: stageBox });
   await a.getByRole('button', { name: /^Origin pin/ }).click();
   const origin = await clickFramePixel(a, truth.originPx);
   await a.getByRole('button', { name: 'Save as version 1' }).click();
@@ -190,4 +196,18 @@ it('an analyst calibrates, a tracker marks ten frames, and after a reload the le
   expect(afterConflict.marks).toHaveLength(10);
   await analystAgain.context.close();
   await tracker.context.close();
+
+  // ---- a viewer reads everything and changes nothing: tools are disabled, with a note saying why.
+  const viewer = await signedInContext(demoPerson('viewer').email);
+  const v = viewer.page;
+  await v.goto(workspaceUrl);
+  await waitForShownFrame(v, 0);
+  expect(await v.getByRole('button', { name: /^Place/ }).isDisabled()).toBe(true);
+  expect(await v.getByRole('button', { name: /^Ruler/ }).isDisabled()).toBe(true);
+  await v.getByText(/Read-only: your role can look at frames and marks/).waitFor();
+  await clickFramePixel(v, { u: truth.frames[0].uPx + 30, v: truth.frames[0].vPx - 30 });
+  await v.getByRole('table', { name: 'Marks ledger' }).locator('tbody tr').nth(9).waitFor();
+  expect(await v.getByRole('table', { name: 'Marks ledger' }).locator('tbody tr').count()).toBe(10);
+  expect(await v.getByTestId('save-status').textContent()).toBe('All marks saved.');
+  await viewer.context.close();
 });

@@ -173,6 +173,7 @@ export function FrameStage({ editor, frameCache, imageSize, transform, preview, 
       data-pan-y={view.panY}
       data-frame={frameNumber}
       data-shown-frame={shown?.frameNumber ?? ''}
+      data-loupe={showLoupe ? 'on' : 'off'}
       onContextMenu={(e) => e.preventDefault()}
       onMouseLeave={() => setPointer(null)}
     >

@@ -6,7 +6,11 @@ export function SaveStatus({ saving }: { saving: MarkSaving }) {
   return (
     <div className="flex flex-col gap-2">
       <p role="status" className="text-micro text-ink-faint" data-testid="save-status">
-        {saving.pending > 0 ? `Saving ${saving.pending} change${saving.pending === 1 ? '' : 's'}…` : 'All marks saved.'}
+        {saving.pending > 0
+          ? `Saving ${saving.pending} change${saving.pending === 1 ? '' : 's'}…`
+          : saving.conflicts.length > 0
+            ? `Saved, except ${saving.conflicts.length} frame${saving.conflicts.length === 1 ? '' : 's'} to settle below.`
+            : 'All marks saved.'}
       </p>
       {saving.error && (
         <div role="alert" className="flex items-start justify-between gap-3 rounded-md border border-alert/40 bg-alert-light/60 px-3 py-2 text-body text-alert">

@@ -40,7 +40,8 @@ export function useWorkspaceData(teamId: string, clipId: string, editor: Editor,
 
   const loaded = useRef(false);
   const allMarksLoaded = marks.every((q) => q.data);
-  const ready = !!(clip.data && frames.data && calibration.data && tracks.data && allMarksLoaded && trackList.length > 0);
+  // Someone who may mark waits for the projectile track being created; a reader opens the clip as it is.
+  const ready = !!(clip.data && frames.data && calibration.data && tracks.data && allMarksLoaded && (trackList.length > 0 || !canMark));
 
   useEffect(() => {
     if (!ready || loaded.current) return;
