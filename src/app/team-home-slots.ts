@@ -6,7 +6,6 @@ import type { TeamHomeLink, TeamHomePanel } from '@/features/teams/components/te
 export const TEAM_HOME_LINKS: TeamHomeLink[] = [
   { label: 'Record a shot', description: 'Launcher, projectile and conditions first; the clip follows.', to: (teamId) => `/t/${teamId}/shots/new`, roles: CAN.editShots },
   { label: 'Shots', description: 'Every shot of the team with its clip, marks and fit.', to: (teamId) => `/t/${teamId}/shots` },
-  { label: 'Shot results', description: 'Fitted launch speed, angle and drag with their 95% intervals.', to: (teamId) => `/t/${teamId}/results` },
   { label: 'Launchers & projectiles', description: 'The kit the team shoots with.', to: (teamId) => `/t/${teamId}/kit` },
   { label: 'Members', description: 'Who is in the team and what each role does.', to: (teamId) => `/t/${teamId}/members` },
   { label: 'Invite people', description: 'Send an invitation by e-mail with a role.', to: (teamId) => `/t/${teamId}/members#invite`, roles: CAN.manageMembers },
