@@ -3,7 +3,7 @@ import type { Browser, Page } from 'playwright-core';
 import { DEMO_PASSWORD, DEMO_TEAM, demoPerson } from '../../server/seed/demo-people';
 import { launchBrowser, screenshot, signIn } from '../support/browser';
 
-// The signed-in journey through the real server, built client and seeded
+// The signed-in journey through the real server, built client and demo
 // database: the analyst reaches the team home, a wrong password is explained
 // in words, and signing out really ends the session (the server, not just the
 // client, refuses the next page).

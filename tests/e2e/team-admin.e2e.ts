@@ -36,7 +36,7 @@ it('invites a tracker, shows the mail in the outbox, and the link makes a member
   await expect(membersTable.getByRole('columnheader', { name: 'E-mail' }).getAttribute('aria-sort')).resolves.toBe('ascending');
   await expect(emails()).resolves.toEqual([...before].sort((a, b) => a.localeCompare(b)));
 
-  // The seeded team has one admin: demoting her must be refused, readably.
+  // The demo team has one admin: demoting her must be refused, readably.
   await page.getByLabel(`Role of ${admin.displayName}`).selectOption('analyst');
   const refusal = page.getByRole('alert').filter({ hasText: 'last admin' });
   await refusal.waitFor();
