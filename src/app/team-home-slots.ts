@@ -4,6 +4,7 @@ import type { TeamHomeLink, TeamHomePanel } from '@/features/teams/components/te
 // What the team home offers, per role. Features add their shortcuts and
 // panels here (one entry each); the team home only renders what it is given.
 export const TEAM_HOME_LINKS: TeamHomeLink[] = [
+  { label: 'Shot results', description: 'Every shot with its latest fit: state, launch speed and Cd.', to: (teamId) => `/t/${teamId}/results` },
   { label: 'Record a shot', description: 'Launcher, projectile and conditions first; the clip follows.', to: (teamId) => `/t/${teamId}/shots/new`, roles: CAN.editShots },
   { label: 'Shots', description: 'Every shot of the team with its clip, marks and fit.', to: (teamId) => `/t/${teamId}/shots` },
   { label: 'Launchers & projectiles', description: 'The kit the team shoots with.', to: (teamId) => `/t/${teamId}/kit` },

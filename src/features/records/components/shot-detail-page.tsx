@@ -42,14 +42,17 @@ export function ShotDetailPage({ clipPanel }: ShotDetailPageProps) {
         title={`Shot ${s.label}`}
         subtitle={`Recorded ${formatDateTime(s.createdAt)}`}
         actions={
-          canEdit && (
-            <>
-              <ButtonLink to={`/t/${teamId}/shots/${shotId}/edit`}>Edit shot</ButtonLink>
-              <Button variant="ghost" onClick={() => setConfirming(true)}>
-                Delete
-              </Button>
-            </>
-          )
+          <>
+            <ButtonLink to={`/t/${teamId}/shots/${shotId}/fits`}>Fits</ButtonLink>
+            {canEdit && (
+              <>
+                <ButtonLink to={`/t/${teamId}/shots/${shotId}/edit`}>Edit shot</ButtonLink>
+                <Button variant="ghost" onClick={() => setConfirming(true)}>
+                  Delete
+                </Button>
+              </>
+            )}
+          </>
         }
       />
       <div className="grid items-start gap-4 lg:grid-cols-[minmax(0,20rem)_minmax(0,1fr)]">
