@@ -1,10 +1,13 @@
-import { and, eq } from 'drizzle-orm';
+import { and, eq, getTableColumns } from 'drizzle-orm';
 import { alias } from 'drizzle-orm/pg-core';
 import type { ClipView } from '../../shared/schemas/clips';
 import type { Db } from '../db/client';
 import { clips } from '../db/schema/clips';
 
-type ClipRow = typeof clips.$inferSelect;
+type ClipRow = Omit<typeof clips.$inferSelect, 'framePtsS'>;
+
+// Everything but the per-frame timestamps, which can run to a megabyte on long clips.
+const { framePtsS: _pts, ...viewColumns } = getTableColumns(clips);
 
 const duplicate = alias(clips, 'duplicate');
 
@@ -57,7 +60,7 @@ export async function loadClipViews(db: Db, teamId: string, filter: { clipId?: s
   if (filter.clipId) conditions.push(eq(clips.id, filter.clipId));
   if (filter.shotId) conditions.push(eq(clips.shotId, filter.shotId));
   const rows = await db
-    .select({ clip: clips, dup: { clipId: duplicate.id, shotId: duplicate.shotId, originalName: duplicate.originalName } })
+    .select({ clip: viewColumns, dup: { clipId: duplicate.id, shotId: duplicate.shotId, originalName: duplicate.originalName } })
     .from(clips)
     .leftJoin(duplicate, eq(duplicate.id, clips.duplicateOfClipId))
     .where(and(...conditions))

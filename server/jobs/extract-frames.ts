@@ -10,7 +10,7 @@ import { and, eq, inArray } from 'drizzle-orm';
 import type { Config } from '../config';
 import type { Db } from '../db/client';
 import { clipFrames, clips } from '../db/schema/clips';
-import { CancelledError, MediaError, extractFrames, frameTimestamps, probe, thumbnailStrip } from '../media/ffmpeg';
+import { CancelledError, MediaError, extractFrames, frameTimestamps, probe } from '../media/ffmpeg';
 import { analyseTimeBase } from '../media/time-base';
 import { clipPrefix, type Storage } from '../storage/storage';
 
@@ -89,18 +89,26 @@ export async function runFrameExtraction(deps: ExtractionDeps, run: ExtractionRu
     await mkdir(thumbsDir, { recursive: true });
 
     const input = await storage.localPath(clip.storageKey);
-    const facts = await probe(input);
-    const pts = await frameTimestamps(input, abort.signal);
-    const timeBase = analyseTimeBase({ ptsS: pts, containerFps: facts.containerFps, baseFps: facts.baseFps, captureFps: clip.captureFps });
-    if (!(await stillOwner())) throw new CancelledError();
+    // Timestamps were read at upload; older rows get them from ffprobe while ffmpeg extracts.
+    const timing = (
+      clip.framePtsS && clip.baseFps > 0
+        ? Promise.resolve({ pts: clip.framePtsS, containerFps: clip.containerFps, baseFps: clip.baseFps })
+        : Promise.all([probe(input), frameTimestamps(input, abort.signal)]).then(([facts, pts]) => ({ pts, containerFps: facts.containerFps, baseFps: facts.baseFps }))
+    ).then((t) => analyseTimeBase({ ptsS: t.pts, containerFps: t.containerFps, baseFps: t.baseFps, captureFps: clip.captureFps }));
+    let timingError: unknown = null;
+    timing.catch((err) => {
+      timingError = err;
+      abort.abort();
+    });
 
     let lastWrite = 0;
-    await extractFrames({
+    const extraction = extractFrames({
       input,
       outDir: framesDir,
       inFrame: clip.inFrame,
       outFrame: clip.outFrame,
       jpegQuality: config.jpegQuality,
+      thumbnails: { outDir: thumbsDir, frameNumbers: thumbnailFrames(clip.inFrame, clip.outFrame), widthPx: THUMBNAIL_WIDTH_PX, jpegQuality: Math.min(config.jpegQuality, 80) },
       signal: abort.signal,
       onProgress: (done) => {
         const now = Date.now();
@@ -115,23 +123,23 @@ export async function runFrameExtraction(deps: ExtractionDeps, run: ExtractionRu
           .catch(() => {});
       },
     });
+    await extraction.catch((err) => {
+      throw timingError ?? err;
+    });
+    const timeBase = await timing;
     if (!(await stillOwner())) throw new CancelledError();
     const written = (await readdir(framesDir)).filter((n) => /^\d{6,}\.jpg$/.test(n)).sort();
     if (written.length === 0) throw new MediaError('ffmpeg decoded no frames in the chosen range');
-    const frameNumbers = written.map((n) => Number(n.slice(0, -4)));
-    const thumbs = thumbnailFrames(frameNumbers[0], frameNumbers[frameNumbers.length - 1]);
-    const thumbCount = await thumbnailStrip({
-      input, outDir: thumbsDir, frameNumbers: thumbs, widthPx: THUMBNAIL_WIDTH_PX, jpegQuality: Math.min(config.jpegQuality, 80), signal: abort.signal,
-    });
 
     const version = `v-${Date.now().toString(36)}-${randomBytes(3).toString('hex')}`;
     newPrefix = `${clipPrefix(clip.teamId, clip.id)}${version}/`;
-    const rows: (typeof clipFrames.$inferInsert)[] = [];
-    for (const name of written) {
-      const frameNumber = Number(name.slice(0, -4));
-      const stored = await storage.putFile(`${newPrefix}frames/${name}`, path.join(framesDir, name));
+    // Only frame files go into storage.
+    for (const name of await readdir(framesDir)) if (!written.includes(name)) await rm(path.join(framesDir, name), { force: true });
+    const storedFrames = await storage.putDirectory(`${newPrefix}frames/`, framesDir);
+    const rows: (typeof clipFrames.$inferInsert)[] = storedFrames.map((stored) => {
+      const frameNumber = Number(stored.key.slice(stored.key.lastIndexOf('/') + 1, -4));
       const time = timeBase.frames[frameNumber];
-      rows.push({
+      return {
         clipId: clip.id,
         frameNumber,
         tS: time?.tS ?? frameNumber / clip.captureFps,
@@ -139,10 +147,9 @@ export async function runFrameExtraction(deps: ExtractionDeps, run: ExtractionRu
         flag: time?.flag ?? null,
         storageKey: stored.key,
         sizeBytes: stored.sizeBytes,
-      });
-    }
-    const thumbFiles = (await readdir(thumbsDir)).filter((n) => n.endsWith('.jpg')).sort();
-    for (const name of thumbFiles) await storage.putFile(`${newPrefix}thumbs/${name}`, path.join(thumbsDir, name));
+      };
+    });
+    const thumbFiles = (await storage.putDirectory(`${newPrefix}thumbs/`, thumbsDir)).filter((o) => o.key.endsWith('.jpg'));
 
     const warnings = timeBase.warnings;
     await db.transaction(async (tx) => {
@@ -157,7 +164,7 @@ export async function runFrameExtraction(deps: ExtractionDeps, run: ExtractionRu
           progress: 1,
           error: null,
           extractedCount: rows.length,
-          thumbnailCount: Math.min(thumbCount, thumbFiles.length),
+          thumbnailCount: thumbFiles.length,
           framesPrefix: newPrefix,
           variableFrameRate: timeBase.variableFrameRate,
           timeBaseWarnings: warnings,

@@ -129,6 +129,8 @@ export interface ExtractFramesOptions {
   inFrame: number;
   outFrame: number;
   jpegQuality: number;
+  /** Also write a thumbnail strip (`thumb-00.jpg`, …) of these source frames, in the same decoding pass. */
+  thumbnails?: { outDir: string; frameNumbers: number[]; widthPx: number; jpegQuality: number };
   /** Called with the number of frames written so far. */
   onProgress?: (framesDone: number) => void;
   signal?: AbortSignal;
@@ -139,21 +141,39 @@ export interface ExtractFramesOptions {
  * filter; passthrough timing writes each decoded frame once (no duplicates to
  * fill a constant rate, none dropped); files are numbered by source frame.
  * ffmpeg's default autorotate turns the picture upright before the filters.
+ * The thumbnail strip branches off the same decoded frames (split), so the
+ * clip is decoded once; both outputs stop at OUT (-frames:v), not at the end of the file.
  */
 function extractCommand(o: Omit<ExtractFramesOptions, 'onProgress' | 'signal'>) {
   const count = o.outFrame - o.inFrame + 1;
-  return ffmpeg(o.input)
-    .inputOptions(['-hide_banner', '-nostdin'])
+  const range = `select='between(n\\,${o.inFrame}\\,${o.outFrame})'`;
+  const command = ffmpeg(o.input).inputOptions(['-hide_banner', '-nostdin']);
+  const frameOptions = [
+    '-fps_mode', 'passthrough',
+    '-frames:v', String(count),
+    '-start_number', String(o.inFrame),
+    '-q:v', String(mjpegQScale(o.jpegQuality)),
+    '-f', 'image2',
+  ];
+  const thumbs = o.thumbnails?.frameNumbers.filter((n) => n >= o.inFrame && n <= o.outFrame) ?? [];
+  if (!o.thumbnails || thumbs.length === 0) {
+    return command.outputOptions(['-map', '0:v:0', '-vf', range, ...frameOptions]).output(path.join(o.outDir, '%06d.jpg'));
+  }
+  // After the range select, n counts from IN, so the strip picks frames relative to it.
+  const pick = thumbs.map((n) => `eq(n\\,${n - o.inFrame})`).join('+');
+  return command
+    .complexFilter(`[0:v:0]${range},split=2[frames][strip];[strip]select='${pick}',scale=${o.thumbnails.widthPx}:-2[thumbs]`)
+    .output(path.join(o.outDir, '%06d.jpg'))
+    .outputOptions(['-map', '[frames]', ...frameOptions])
+    .output(path.join(o.thumbnails.outDir, 'thumb-%02d.jpg'))
     .outputOptions([
-      '-map', '0:v:0',
-      '-vf', `select='between(n\\,${o.inFrame}\\,${o.outFrame})'`,
+      '-map', '[thumbs]',
       '-fps_mode', 'passthrough',
-      '-frames:v', String(count),
-      '-start_number', String(o.inFrame),
-      '-q:v', String(mjpegQScale(o.jpegQuality)),
+      '-frames:v', String(thumbs.length),
+      '-start_number', '0',
+      '-q:v', String(mjpegQScale(o.thumbnails.jpegQuality)),
       '-f', 'image2',
-    ])
-    .output(path.join(o.outDir, '%06d.jpg'));
+    ]);
 }
 
 /** The exact ffmpeg argument list extractFrames runs (the bench runs it directly as a baseline). */
@@ -185,11 +205,11 @@ function runCommand(command: ffmpeg.FfmpegCommand, onFrames: ((n: number) => voi
       });
     }
     command
-      .on('error', (err: Error, _stdout: string, stderr: string) => {
+      .on('error', (err: Error, _stdout: string | null, stderr: string | null) => {
         signal?.removeEventListener('abort', onAbort);
         if (signal?.aborted) return reject(new CancelledError());
         const last = String(stderr ?? '').trim().split('\n').filter(Boolean).pop();
-        reject(new MediaError(last ? `ffmpeg failed: ${last}` : err.message, stderr));
+        reject(new MediaError(last ? `ffmpeg failed: ${last}` : err.message, stderr ?? ''));
       })
       .on('end', () => {
         signal?.removeEventListener('abort', onAbort);

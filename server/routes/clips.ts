@@ -167,9 +167,14 @@ export function clipRoutes(api: RouteTable, deps: AppDeps) {
       await enqueue(row.id);
     } else {
       // Same frames, new clock: recompute every frame time from the file's timestamps.
-      const file = await storage.localPath(row.storageKey);
-      const facts = await probe(file);
-      const timeBase = analyseTimeBase({ ptsS: await frameTimestamps(file), containerFps: facts.containerFps, baseFps: facts.baseFps, captureFps });
+      let pts = row.framePtsS;
+      let baseFps = row.baseFps;
+      if (!pts || !(baseFps > 0)) {
+        const file = await storage.localPath(row.storageKey);
+        baseFps = (await probe(file)).baseFps;
+        pts = await frameTimestamps(file);
+      }
+      const timeBase = analyseTimeBase({ ptsS: pts, containerFps: row.containerFps, baseFps, captureFps });
       const numbers = timeBase.frames.filter((f) => f.frameNumber >= row.inFrame && f.frameNumber <= row.outFrame);
       await db.transaction(async (tx) => {
         await tx.execute(sql`

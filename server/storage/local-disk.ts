@@ -69,6 +69,26 @@ export function localDiskStorage(rootDir: string): Storage {
       }
       return (await statKey(key))!;
     },
+    async putDirectory(prefix, localDir) {
+      if (!prefix.endsWith('/')) throw new Error(`putDirectory needs a prefix ending in '/': ${prefix}`);
+      const target = fileOf(prefix.slice(0, -1));
+      await mkdir(path.dirname(target), { recursive: true });
+      await rm(target, { recursive: true, force: true });
+      try {
+        await rename(localDir, target);
+      } catch (err) {
+        if ((err as NodeJS.ErrnoException).code !== 'EXDEV') throw err;
+        await mkdir(target, { recursive: true });
+        for (const name of await readdir(localDir)) await this.putFile(`${prefix}${name}`, path.join(localDir, name));
+      }
+      const names = (await readdir(target)).sort();
+      return Promise.all(
+        names.map(async (name) => {
+          const s = await stat(path.join(target, name));
+          return { key: `${prefix}${name}`, sizeBytes: s.size, modifiedAt: s.mtime };
+        }),
+      );
+    },
     async get(key) {
       const file = fileOf(key);
       await stat(file);

@@ -15,6 +15,11 @@ export interface Storage {
   put(key: string, body: Readable): Promise<StoredObject>;
   /** Moves a local file into storage; cheap (a rename) on local disk. */
   putFile(key: string, localPath: string): Promise<StoredObject>;
+  /**
+   * Moves every file of a local folder (flat) under the prefix (ending in '/');
+   * one rename on local disk. Returns the stored objects.
+   */
+  putDirectory(prefix: string, localDir: string): Promise<StoredObject[]>;
   get(key: string): Promise<Readable>;
   /** Null when absent. */
   stat(key: string): Promise<StoredObject | null>;

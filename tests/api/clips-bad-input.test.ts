@@ -57,6 +57,20 @@ afterEach(async () => {
   expect((await analyst.get('/api/auth/me')).status).toBe(200);
 });
 
+/** The app on a real port, and a session cookie of the analyst, for hand-made requests. */
+async function listen() {
+  const server = http.createServer(t.app).listen(0, '127.0.0.1');
+  await new Promise((r) => server.once('listening', r));
+  const { port } = server.address() as AddressInfo;
+  const signIn = await fetch(`http://127.0.0.1:${port}/api/auth/sign-in`, {
+    method: 'POST',
+    headers: { 'Content-Type': 'application/json', 'X-Arcbench-Request': '1' },
+    body: JSON.stringify({ email: demoPerson('analyst').email, password: DEMO_PASSWORD }),
+  });
+  const cookie = (signIn.headers.get('set-cookie') ?? '').split(';')[0];
+  return { port, cookie, close: () => new Promise((r) => server.close(r)) };
+}
+
 describe('rejected uploads', () => {
   it('zero bytes → 400', async () => {
     const res = await uploadClip(analyst, teamId, shotId, { buffer: Buffer.alloc(0), name: 'empty.mp4' });
@@ -123,17 +137,40 @@ describe('rejected uploads', () => {
     expectProblem(res, 400);
   });
 
-  it('an upload interrupted mid-stream leaves nothing behind', async () => {
-    const server = http.createServer(t.app).listen(0, '127.0.0.1');
-    await new Promise((r) => server.once('listening', r));
+  it('a file over the limit sent without a declared length (chunked) → 413 once the limit is crossed', async () => {
+    const { port, cookie, close } = await listen();
     try {
-      const { port } = server.address() as AddressInfo;
-      const signIn = await fetch(`http://127.0.0.1:${port}/api/auth/sign-in`, {
-        method: 'POST',
-        headers: { 'Content-Type': 'application/json', 'X-Arcbench-Request': '1' },
-        body: JSON.stringify({ email: demoPerson('analyst').email, password: DEMO_PASSWORD }),
+      const boundary = '----arcbench-chunked';
+      const res = await new Promise<{ status: number; type: string; body: string }>((resolve, reject) => {
+        const req = http.request(
+          {
+            host: '127.0.0.1', port, method: 'POST', path: `/api/teams/${teamId}/shots/${shotId}/clips`,
+            headers: { 'Content-Type': `multipart/form-data; boundary=${boundary}`, 'Transfer-Encoding': 'chunked', 'X-Arcbench-Request': '1', Cookie: cookie },
+          },
+          (r) => {
+            let body = '';
+            r.on('data', (d) => (body += d));
+            r.on('end', () => resolve({ status: r.statusCode ?? 0, type: String(r.headers['content-type']), body }));
+          },
+        );
+        req.on('error', reject);
+        req.write(`--${boundary}\r\nContent-Disposition: form-data; name="captureFps"\r\n\r\n240\r\n`);
+        req.write(`--${boundary}\r\nContent-Disposition: form-data; name="file"; filename="long.mp4"\r\nContent-Type: video/mp4\r\n\r\n`);
+        req.write(readFileSync(clean.videoPath));
+        for (let i = 0; i < 8; i++) req.write(Buffer.alloc(64 * 1024, 1));
+        req.end(`\r\n--${boundary}--\r\n`);
       });
-      const sessionCookie = (signIn.headers.get('set-cookie') ?? '').split(';')[0];
+      expect(res.status).toBe(413);
+      expect(res.type).toMatch(/^application\/problem\+json/);
+      expect(JSON.parse(res.body).detail).toContain('upload limit of 256 KiB');
+    } finally {
+      await close();
+    }
+  });
+
+  it('an upload interrupted mid-stream leaves nothing behind', async () => {
+    const { port, cookie, close } = await listen();
+    try {
       const boundary = '----arcbench-interrupted';
       const head = Buffer.from(
         `--${boundary}\r\nContent-Disposition: form-data; name="captureFps"\r\n\r\n240\r\n` +
@@ -148,7 +185,7 @@ describe('rejected uploads', () => {
           'Content-Type': `multipart/form-data; boundary=${boundary}`,
           'Content-Length': String(head.length + 200_000 + 64),
           'X-Arcbench-Request': '1',
-          Cookie: sessionCookie,
+          Cookie: cookie,
         },
       });
       req.on('error', () => {});
@@ -159,7 +196,7 @@ describe('rejected uploads', () => {
       expect(filesUnder(storageDir).length).toBeGreaterThan(0);
       req.destroy();
     } finally {
-      await new Promise((r) => server.close(r));
+      await close();
     }
   });
 });

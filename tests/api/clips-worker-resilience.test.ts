@@ -76,7 +76,12 @@ describe('a worker killed mid-extraction', () => {
 
     // pg-boss ran the same job again (a retry, not a new job).
     const [clipRow] = await t.deps.db.select({ jobId: clips.jobId }).from(clips).where(eq(clips.id, clipId));
-    const job = await t.queue!.boss.getJobById(EXTRACT_FRAMES, clipRow.jobId!);
+    // The clip is ready inside the handler; pg-boss marks the job completed just after it returns.
+    let job = await t.queue!.boss.getJobById(EXTRACT_FRAMES, clipRow.jobId!);
+    for (let i = 0; i < 100 && job?.state === 'active'; i++) {
+      await new Promise((r) => setTimeout(r, 100));
+      job = await t.queue!.boss.getJobById(EXTRACT_FRAMES, clipRow.jobId!);
+    }
     expect(job?.state).toBe('completed');
     expect(job?.retryCount).toBeGreaterThanOrEqual(1);
 

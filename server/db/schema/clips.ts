@@ -28,7 +28,11 @@ export const clips = pgTable(
     rotationDeg: integer('rotation_deg').notNull().default(0),
     containerFps: doublePrecision('container_fps').notNull(),
     captureFps: doublePrecision('capture_fps').notNull(),
+    /** Nominal tick of the file (r_frame_rate); 0 when unknown. */
+    baseFps: doublePrecision('base_fps').notNull().default(0),
     frameCount: integer('frame_count').notNull(),
+    /** Every frame's presentation timestamp (s), display order, read once at upload so jobs need no second ffprobe. */
+    framePtsS: doublePrecision('frame_pts_s').array(),
     durationS: doublePrecision('duration_s').notNull(),
     variableFrameRate: boolean('variable_frame_rate').notNull().default(false),
     timeBaseWarnings: jsonb('time_base_warnings').$type<ClipWarning[]>().notNull().default([]),
