@@ -207,3 +207,28 @@ describe('changing a clip', () => {
     expectProblem(await analyst.get(`/api/teams/${teamId}/clips/${clip.id}`), 404);
   });
 });
+
+describe('cancelling an extraction', () => {
+  it('stops the job, keeps no frames, and a re-extract afterwards completes', async () => {
+    const long = await generatePreset('clean', fixtureDir('cancel'), { name: 'cancel-me', frameCount: 900, noiseSigma: 0, x264Preset: 'ultrafast', crf: 24 });
+    const up = await uploadClip(analyst, teamId, shotId, long.videoPath, { captureFps: 240 });
+    expect(up.status).toBe(201);
+    const cancelled = await analyst.post(`/api/teams/${teamId}/clips/${up.body.id}/cancel`);
+    expect(cancelled.status, JSON.stringify(cancelled.body)).toBe(200);
+    expect(cancelled.body.status).toBe('cancelled');
+    // A run that had started notices within a heartbeat and removes its scratch folder on the way out.
+    const scratch = () => filesUnder(storageDir).filter((f) => f.startsWith('tmp/extract/'));
+    for (let i = 0; i < 200 && scratch().length > 0; i++) await new Promise((r) => setTimeout(r, 100));
+    await new Promise((r) => setTimeout(r, 1500));
+    expect(scratch()).toEqual([]);
+    const after = (await analyst.get(`/api/teams/${teamId}/clips/${up.body.id}`)).body as ClipView;
+    expect(after.status).toBe('cancelled');
+    expect((await analyst.get(`/api/teams/${teamId}/clips/${up.body.id}/frames`)).body).toEqual([]);
+    expect(filesUnder(storageDir).filter((f) => f.includes(`/clips/${up.body.id}/v-`))).toEqual([]);
+
+    expect((await analyst.post(`/api/teams/${teamId}/clips/${up.body.id}/extract`)).status).toBe(202);
+    const ready = await waitForClip(analyst, teamId, up.body.id);
+    expect(ready.status, ready.error ?? '').toBe('ready');
+    expect(ready.extractedCount).toBe(900);
+  }, 240_000);
+});
