@@ -309,6 +309,16 @@ describe('measured against forecast', () => {
   });
 });
 
+describe('fits remember the version they were compared against', () => {
+  it('records a comparison (engineers only) and lists it on the fit', async () => {
+    expectProblem(await analyst.post(url(`/presets/${presetId}/versions/2/comparisons`)).send({ fitIds: [discordant[0]] }), 403);
+    const res = await engineer.post(url(`/presets/${presetId}/versions/2/comparisons`)).send({ fitIds: [discordant[0]] });
+    expect(res.status, JSON.stringify(res.body)).toBe(201);
+    const list = await viewer.get(url(`/fits/${discordant[0]}/preset-comparisons`));
+    expect(list.body).toEqual(expect.arrayContaining([expect.objectContaining({ presetId, version: 2, role: 'compared' }), expect.objectContaining({ presetId, version: 3, role: 'pooled' })]));
+  });
+});
+
 describe('demo presets', () => {
   it('the demo team has at least two presets with history', async () => {
     const res = await viewer.get(url('/presets'));

@@ -1,3 +1,8 @@
+import { CAN } from '@shared/roles';
+import { Button } from '@/components/ui/button';
+import { InlineStatus } from '@/components/ui/inline-status';
+import { useCurrentTeam } from '@/lib/use-current-team';
+import { useRecordComparisons } from '../api/record-comparisons';
 import { CartesianGrid, Legend, ReferenceLine, ResponsiveContainer, Scatter, ScatterChart, Tooltip, XAxis, YAxis } from 'recharts';
 import { Card } from '@/components/ui/card';
 import { FormError } from '@/components/ui/form-error';
@@ -29,12 +34,22 @@ function Parity({ title, unit, points, colour }: { title: string; unit: string; 
 /** Each approved shot of this launcher and projectile: what it did against what the preset says it should have done. */
 export function MeasuredVsForecastChart({ teamId, presetId, version }: { teamId: string; presetId: string; version?: number }) {
   const q = useMeasuredVsForecast(teamId, presetId, version);
+  const { can } = useCurrentTeam();
+  const record = useRecordComparisons(teamId, presetId);
   const rows = q.data?.rows ?? [];
   const speeds = rows.filter((r) => r.forecastSpeedMps !== null).map((r) => ({ forecast: r.forecastSpeedMps!, measured: r.measuredSpeedMps, label: r.shotLabel }));
   const ranges = rows.filter((r) => r.forecastRangeM !== null && r.tapeRangeM !== null).map((r) => ({ forecast: r.forecastRangeM!, measured: r.tapeRangeM!, label: r.shotLabel }));
   return (
     <Card title="Measured against forecast" subtitle={q.data ? `Forecast by version ${q.data.version} at each shot’s own pressure, elevation and air` : undefined}>
-      <FormError error={q.error} />
+      <FormError error={q.error ?? record.error} />
+      {q.data && rows.length > 0 && can(CAN.review) && (
+        <div className="mb-3 flex flex-wrap items-center gap-3">
+          <Button size="sm" busy={record.isPending} onClick={() => record.mutate({ version: q.data.version, fitIds: rows.map((r) => r.fitId) })}>
+            Record these shots as compared against version {q.data.version}
+          </Button>
+          {record.isSuccess && <InlineStatus tone="ok">Recorded: each fit now remembers version {record.data.version}.</InlineStatus>}
+        </div>
+      )}
       {q.isLoading && <LoadingBlock />}
       {q.data && rows.length === 0 && <p className="text-body text-ink-soft">No approved shots of this launcher and projectile yet.</p>}
       {rows.length > 0 && (
