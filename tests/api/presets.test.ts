@@ -319,6 +319,13 @@ describe('fits remember the version they were compared against', () => {
   });
 });
 
+describe('simulated fits', () => {
+  it('read like any stored fit on the fits API', async () => {
+    const res = await viewer.get(`/api/teams/${teamId}/fits/${agreeing[0]}`);
+    expect(res.status, JSON.stringify(res.body).slice(0, 400)).toBe(200);
+  });
+});
+
 describe('demo presets', () => {
   it('the demo team has at least two presets with history', async () => {
     const res = await viewer.get(url('/presets'));
