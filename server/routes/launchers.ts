@@ -7,6 +7,7 @@ import type { AppDeps } from '../app-deps';
 import { audit } from '../audit';
 import { signedIn, teamRole } from '../auth/access';
 import { launchers, shots } from '../db/schema/records';
+import { designPresets } from '../db/schema/presets';
 import { currentTeam, currentUser, input } from '../http/input';
 import { conflict, notFound } from '../http/problem';
 import type { RouteTable } from '../http/route-table';
@@ -72,6 +73,9 @@ export function launcherRoutes(api: RouteTable, { db }: AppDeps) {
     await db.transaction(async (tx) => {
       const [{ n }] = await tx.select({ n: count() }).from(shots).where(eq(shots.launcherId, params.launcherId));
       if (n > 0) throw conflict(`${n} shot${n === 1 ? '' : 's'} name${n === 1 ? 's' : ''} the launcher “${launcher.name}”; it cannot be deleted while they do.`, { shotCount: n });
+      // A design preset forecasts from this record; deleting it would orphan the preset's versions.
+      const [{ p }] = await tx.select({ p: count() }).from(designPresets).where(eq(designPresets.launcherId, params.launcherId));
+      if (p > 0) throw conflict(`${p} design preset${p === 1 ? '' : 's'} use${p === 1 ? 's' : ''} the launcher “${launcher.name}”; it cannot be deleted while they do.`, { presetCount: p });
       await tx.delete(launchers).where(eq(launchers.id, params.launcherId));
       await audit(tx, { teamId: team.id, actorUserId: currentUser(res).id, action: 'launcher.delete', targetType: 'launcher', targetId: params.launcherId, detail: { name: launcher.name } });
     });

@@ -126,6 +126,20 @@ describe('creating a preset', () => {
   });
 });
 
+describe('kit named by a preset', () => {
+  it('cannot be deleted while the preset uses it (409), and nothing is lost', async () => {
+    const l = await engineer.post(url('/launchers')).send({ ...LAUNCHER, name: `Kept launcher ${sfx}` });
+    const p = await engineer.post(url('/projectiles')).send({ ...PROJECTILE, name: `Kept head ${sfx}` });
+    const preset = await engineer.post(url('/presets')).send({ name: `Kept preset ${sfx}`, launcherId: l.body.id, projectileId: p.body.id, pressureMinPa: 4e5, pressureMaxPa: 9e5 });
+    expect(preset.status, JSON.stringify(preset.body)).toBe(201);
+    const dl = await engineer.delete(url(`/launchers/${l.body.id}`));
+    expectProblem(dl, 409);
+    expect(dl.body.detail).toMatch(/design preset/);
+    expectProblem(await engineer.delete(url(`/projectiles/${p.body.id}`)), 409);
+    expect((await viewer.get(url(`/presets/${preset.body.id}`))).status).toBe(200);
+  });
+});
+
 describe('publishing versions from approved fits', () => {
   it('lists only approved fits of the preset’s launcher and projectile as candidates', async () => {
     const res = await viewer.get(url(`/presets/${presetId}/candidates`));
