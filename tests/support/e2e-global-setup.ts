@@ -29,7 +29,10 @@ export default async function setup(project: TestProject) {
   const root = path.resolve(import.meta.dirname, '../..');
   server = spawn(path.join(root, 'node_modules/.bin/tsx'), ['server/index.ts'], {
     cwd: root,
-    env: { ...process.env, PORT: String(port), HOST: '127.0.0.1', SMTP_URL: '' },
+    // All browser tests sign in from 127.0.0.1 against this one server; the
+    // sign-in rate limit (tested in tests/api/auth-session.test.ts) would
+    // otherwise lock later files out.
+    env: { ...process.env, PORT: String(port), HOST: '127.0.0.1', SMTP_URL: '', SIGN_IN_LIMIT: '10000' },
     stdio: ['ignore', 'pipe', 'pipe', 'ipc'],
   });
   let output = '';
