@@ -2,6 +2,7 @@
 // drag fit for 100, 500 and 2000 marks, next to the drag-free fit of the same
 // marks as the in-process baseline. Goal: 500 marks <= 20 ms median.
 // Run: npx tsx scripts/bench-physics.ts
+import { mulberry32, normalDeviates } from '../shared/random/prng';
 import { pathToFileURL } from 'node:url';
 import { fitDragFree } from '../shared/physics/drag-free-fit';
 import { fitQuadraticDrag } from '../shared/physics/drag-fit';
@@ -12,25 +13,12 @@ import type { Mark } from '../shared/physics/types';
 const BALL = { massKg: 0.058, diameterM: 0.065, airDensityKgM3: 1.225 };
 const TARGET_MS_500 = 20;
 
-/** Seeded Gaussian noise (mulberry32 + Box-Muller) so every run fits the same marks. */
-function noiseSource(seed: number): () => number {
-  let a = seed >>> 0;
-  const uniform = () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-  return () => Math.sqrt(-2 * Math.log(1 - uniform())) * Math.cos(2 * Math.PI * uniform());
-}
-
 function shotMarks(count: number, frameRateHz: number): Mark[] {
   const k = dragKFromCd(0.47, BALL.diameterM, BALL.massKg, BALL.airDensityKgM3);
   const th = (40 * Math.PI) / 180;
   const times = Array.from({ length: count }, (_, i) => i / frameRateHz);
   const traj = simulateTrajectory({ dragK_perM: k }, { xM: 0, yM: 1, vxMps: 30 * Math.cos(th), vyMps: 30 * Math.sin(th) }, { timesS: times });
-  const noise = noiseSource(count);
+  const noise = normalDeviates(mulberry32(count));
   return traj.points.map((p) => ({ tS: p.tS, xM: p.xM + 0.002 * noise(), yM: p.yM + 0.002 * noise() }));
 }
 

@@ -21,6 +21,19 @@ export function computeFit(snapshot: FitInputSnapshot): FitShotResult {
   }
 }
 
+/** The numbers a fit is listed and filtered by, copied out of its result. */
+export function headlineColumns(result: FitShotResult) {
+  const finite = (v: number) => (Number.isFinite(v) ? v : null);
+  return {
+    launchSpeedMps: result.launchSpeedMps.value,
+    launchAngleDeg: result.launchAngleDeg.value,
+    dragCoefficient: finite(result.dragCoefficient.value),
+    dragK_perM: finite(result.dragK_perM.value),
+    rmsResidualM: result.rmsResidualM,
+    dragVerdict: result.dragVerdict,
+  };
+}
+
 export interface StoreFitArgs {
   teamId: string;
   userId: string;
@@ -44,12 +57,7 @@ export async function storeFit(db: Db, { teamId, userId, snapshot, result }: Sto
         inputSnapshot: snapshot,
         inputHash: inputHash(snapshot.fitInput),
         result,
-        launchSpeedMps: result.launchSpeedMps.value,
-        launchAngleDeg: result.launchAngleDeg.value,
-        dragCoefficient: Number.isFinite(result.dragCoefficient.value) ? result.dragCoefficient.value : null,
-        dragK_perM: Number.isFinite(result.dragK_perM.value) ? result.dragK_perM.value : null,
-        rmsResidualM: result.rmsResidualM,
-        dragVerdict: result.dragVerdict,
+        ...headlineColumns(result),
         createdBy: userId,
       })
       .returning({ id: fits.id });

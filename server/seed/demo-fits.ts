@@ -1,3 +1,4 @@
+import { mulberry32, normalDeviates } from '../../shared/random/prng';
 import { readFile } from 'node:fs/promises';
 import { and, eq } from 'drizzle-orm';
 import { buildCalibrationTransform } from '../../shared/geometry/calibration-transform';
@@ -44,19 +45,6 @@ const PLANS: DemoFitPlan[] = [
 ];
 
 const APPROVAL_NOTE = 'Residuals flat, drag resolved; fine as the LT-40 reference shot.';
-
-/** Seeded standard normal deviates (mulberry32 uniform, Box–Muller), so every seed places the same marks. */
-function normalDeviates(seed: number): () => number {
-  let a = seed >>> 0;
-  const uniform = () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-  return () => Math.sqrt(-2 * Math.log(1 - uniform())) * Math.cos(2 * Math.PI * uniform());
-}
 
 async function userIdOf(db: Db, email: string): Promise<string | null> {
   const [row] = await db.select({ id: users.id }).from(users).where(eq(users.email, email));
@@ -112,7 +100,7 @@ async function seedFits(db: Db, teamId: string): Promise<void> {
     const truth = JSON.parse(await readFile(await storage.localPath(truthKey), 'utf8')) as ClipTruth;
 
     await ensureCalibration(db, clip.id, truth, analyst);
-    const noise = normalDeviates(plan.seed);
+    const noise = normalDeviates(mulberry32(plan.seed));
     const trackId = await ensureTrack(
       db,
       teamId,

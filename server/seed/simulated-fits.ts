@@ -11,11 +11,12 @@ import { dragKFromCd, simulateTrajectory } from '../../shared/physics/flight';
 import { forecastShot } from '../../shared/physics/forecast';
 import type { Mark } from '../../shared/physics/types';
 import { modelSpeedMps, launcherModelFor, muzzleSpeedFromEfficiency } from '../../shared/presets/launcher-speed';
-import { mulberry32, normalDeviates } from '../../shared/presets/prng';
+import { mulberry32, normalDeviates } from '../../shared/random/prng';
 import type { Db } from '../db/client';
 import { fits } from '../db/schema/fits';
 import { shots, type launchers, type projectiles } from '../db/schema/records';
 import { inputHash } from '../fits/input-hash';
+import { headlineColumns } from '../fits/run-fit';
 
 export interface SimulatedShotSpec {
   label: string;
@@ -133,12 +134,7 @@ export async function createSimulatedApprovedFit(
       inputSnapshot: snapshot,
       inputHash: inputHash(snapshot.fitInput),
       result,
-      launchSpeedMps: result.launchSpeedMps.value,
-      launchAngleDeg: result.launchAngleDeg.value,
-      dragCoefficient: Number.isFinite(result.dragCoefficient.value) ? result.dragCoefficient.value : null,
-      dragK_perM: Number.isFinite(result.dragK_perM.value) ? result.dragK_perM.value : null,
-      rmsResidualM: result.rmsResidualM,
-      dragVerdict: result.dragVerdict,
+      ...headlineColumns(result),
       createdBy: reviewerId,
       reviewedBy: reviewerId,
       reviewedAt: now,

@@ -9,7 +9,7 @@ import { dragKFromCd, simulateTrajectory } from '../physics/flight';
 import { bestElevationForRange, forecastShot, vacuumForecast } from '../physics/forecast';
 import type { Band, ForecastResponse, PresetLauncherModel, SweepRow } from '../schemas/presets';
 import { modelSpeedMps, muzzleSpeedFromEfficiency, type LauncherGeometry } from './launcher-speed';
-import { mulberry32, normalDeviates } from './prng';
+import { mulberry32, normalDeviates } from '../random/prng';
 
 export interface PresetValues {
   dragCoefficient: number;

@@ -1,5 +1,5 @@
-// Seeded pseudo-random numbers for the Monte Carlo band, so the same request
-// always gives the same band (a reviewer can reproduce it).
+// Seeded pseudo-random numbers, so a Monte Carlo band, a demo seed or a bench
+// run gives the same numbers every time (a reviewer can reproduce them).
 
 /** mulberry32: a small 32-bit generator, uniform on [0, 1). */
 export function mulberry32(seed: number): () => number {
