@@ -1,4 +1,4 @@
-import { Outlet, useParams } from 'react-router';
+import { Outlet, useMatch, useParams } from 'react-router';
 import { lastTeamId } from '@/lib/last-team';
 import { useMe } from '@/lib/use-me';
 import { SideNav } from './side-nav';
@@ -11,6 +11,8 @@ import { Wordmark } from './wordmark';
 export function AppShell() {
   const { data: me } = useMe();
   const { teamId } = useParams();
+  // The marking workspace wants every pixel of width for the frame; other pages read better at a measure.
+  const fullWidth = useMatch('/t/:teamId/clips/:clipId/workspace') !== null;
   if (!me) return null;
   // Outside a team page (mail, settings) the side bar keeps the last team open.
   const sideTeam = me.teams.find((t) => t.id === teamId) ?? me.teams.find((t) => t.id === lastTeamId()) ?? me.teams[0];
@@ -31,7 +33,7 @@ export function AppShell() {
           <SideNav team={sideTeam} />
         </aside>
         <main id="main" tabIndex={-1} className="min-w-0 flex-1 px-8 py-6 outline-none">
-          <div className="mx-auto max-w-6xl">
+          <div className={fullWidth ? 'w-full' : 'mx-auto max-w-6xl'}>
             <Outlet />
           </div>
         </main>
