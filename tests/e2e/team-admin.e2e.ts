@@ -23,6 +23,12 @@ it('invites a tracker, shows the mail in the outbox, and the link makes a member
   const page = await (await browser.newContext({ viewport: { width: 1360, height: 900 } })).newPage();
   await signIn(page, baseUrl, admin.email, DEMO_PASSWORD);
   await page.waitForURL(/\/t\/[0-9a-f-]{36}$/);
+  // API tests may have made the demo admin a member of teams of their own, so
+  // open the demo team explicitly rather than whichever team sign-in lands on.
+  const me = (await (await page.request.get(`${baseUrl}/api/auth/me`)).json()) as { teams: { id: string; slug: string }[] };
+  const demoTeamId = me.teams.find((team) => team.slug === DEMO_TEAM.slug)!.id;
+  await page.goto(`${baseUrl}/t/${demoTeamId}`);
+  await page.getByRole('heading', { level: 1, name: DEMO_TEAM.name, exact: true }).waitFor();
   const nav = page.getByRole('navigation', { name: 'Main' });
 
   await nav.getByRole('link', { name: 'Members' }).click();

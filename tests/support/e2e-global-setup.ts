@@ -1,4 +1,4 @@
-import { spawn, type ChildProcess } from 'node:child_process';
+import { execFileSync, spawn, type ChildProcess } from 'node:child_process';
 import net from 'node:net';
 import path from 'node:path';
 import type { TestProject } from 'vitest/node';
@@ -27,12 +27,23 @@ export default async function setup(project: TestProject) {
   if (!process.env.DATABASE_URL) throw new Error('DATABASE_URL is not set: run browser tests through `npm test`.');
   const port = await freePort();
   const root = path.resolve(import.meta.dirname, '../..');
+  // The browser tests get a database of their own, freshly migrated and seeded,
+  // so what the API tests leave behind (extra teams for the demo people, new
+  // preset versions) cannot change where a sign-in lands or what a page shows.
+  const url = new URL(process.env.DATABASE_URL);
+  url.pathname = `${url.pathname}_e2e`;
+  const databaseUrl = url.toString();
+  execFileSync(path.join(root, 'node_modules/.bin/tsx'), ['server/cli/seed.ts'], {
+    cwd: root,
+    env: { ...process.env, DATABASE_URL: databaseUrl },
+    stdio: 'inherit',
+  });
   server = spawn(path.join(root, 'node_modules/.bin/tsx'), ['server/index.ts'], {
     cwd: root,
     // All browser tests sign in from 127.0.0.1 against this one server; the
     // sign-in rate limit (tested in tests/api/auth-session.test.ts) would
     // otherwise lock later files out.
-    env: { ...process.env, PORT: String(port), HOST: '127.0.0.1', SMTP_URL: '', SIGN_IN_LIMIT: '10000' },
+    env: { ...process.env, DATABASE_URL: databaseUrl, PORT: String(port), HOST: '127.0.0.1', SMTP_URL: '', SIGN_IN_LIMIT: '10000' },
     stdio: ['ignore', 'pipe', 'pipe', 'ipc'],
   });
   let output = '';
