@@ -30,9 +30,9 @@ export default async function setup(project: TestProject) {
   // The browser tests get a database of their own, freshly migrated and seeded,
   // so what the API tests leave behind (extra teams for the demo people, new
   // preset versions) cannot change where a sign-in lands or what a page shows.
-  const url = new URL(process.env.DATABASE_URL);
-  url.pathname = `${url.pathname}_e2e`;
-  const databaseUrl = url.toString();
+  const dbUrl = new URL(process.env.DATABASE_URL);
+  dbUrl.pathname = `${dbUrl.pathname}_e2e`;
+  const databaseUrl = dbUrl.toString();
   execFileSync(path.join(root, 'node_modules/.bin/tsx'), ['server/cli/seed.ts'], {
     cwd: root,
     env: { ...process.env, DATABASE_URL: databaseUrl },
