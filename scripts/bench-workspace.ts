@@ -5,12 +5,10 @@
 // next animation frame — the browser's own floor for "react to a key".
 // Run alone: npx tsx scripts/bench-workspace.ts (needs DATABASE_URL and a
 // built client, as `npm run bench` provides).
-import { spawn, type ChildProcess } from 'node:child_process';
-import net from 'node:net';
-import path from 'node:path';
 import { pathToFileURL } from 'node:url';
 import type { Page } from 'playwright-core';
 import { DEMO_PASSWORD, demoPerson } from '../server/seed/demo-people';
+import { startAppServer } from '../tests/support/app-server';
 import { launchBrowser, signIn } from '../tests/support/browser';
 import { demoTeamId, uploadGeneratedClip } from '../tests/support/generated-clip-upload';
 
@@ -25,47 +23,9 @@ function quantile(values: number[], q: number): number {
   return s[lo] + (s[Math.min(lo + 1, s.length - 1)] - s[lo]) * (i - lo);
 }
 
-function freePort(): Promise<number> {
-  return new Promise((resolve, reject) => {
-    const srv = net.createServer();
-    srv.on('error', reject);
-    srv.listen(0, '127.0.0.1', () => {
-      const { port } = srv.address() as net.AddressInfo;
-      srv.close(() => resolve(port));
-    });
-  });
-}
-
 async function startServer(): Promise<{ url: string; stop: () => Promise<void> }> {
   if (!process.env.DATABASE_URL) throw new Error('DATABASE_URL is not set: run through `npm run bench`, which starts a throwaway database.');
-  const root = path.resolve(import.meta.dirname, '..');
-  const server: ChildProcess = spawn(path.join(root, 'node_modules/.bin/tsx'), ['server/index.ts'], {
-    cwd: root,
-    env: { ...process.env, PORT: String(await freePort()), HOST: '127.0.0.1', SMTP_URL: '' },
-    stdio: ['ignore', 'pipe', 'pipe', 'ipc'],
-  });
-  let output = '';
-  server.stdout?.on('data', (d) => (output += d));
-  server.stderr?.on('data', (d) => (output += d));
-  const url = await new Promise<string>((resolve, reject) => {
-    const timer = setTimeout(() => reject(new Error(`server did not start in 60 s:\n${output}`)), 60_000);
-    server.on('message', (msg: { ready?: boolean; url?: string }) => {
-      if (msg.ready && msg.url) {
-        clearTimeout(timer);
-        resolve(msg.url);
-      }
-    });
-    server.on('exit', (code) => reject(new Error(`server exited (${code}):\n${output}`)));
-  });
-  return {
-    url,
-    stop: async () => {
-      if (server.exitCode === null) {
-        server.kill('SIGTERM');
-        await new Promise((r) => server.once('exit', r));
-      }
-    },
-  };
+  return startAppServer();
 }
 
 const shownFrame = (page: Page) => page.evaluate(() => document.querySelector<HTMLElement>('[data-testid="frame-stage"]')?.dataset.shownFrame ?? '');
