@@ -6,7 +6,7 @@ import { fileURLToPath } from 'node:url';
 import { log, fail, run } from './lib/run.mjs';
 import { ensureSystemPackages } from './lib/system-packages.mjs';
 import { ensureNodeModules } from './lib/node-modules.mjs';
-import { startCluster } from './lib/pg-cluster.mjs';
+import { startCloneCluster } from './lib/pg-cluster.mjs';
 import { sessionSecret } from './lib/secrets.mjs';
 import { bin } from './lib/tool.mjs';
 
@@ -16,8 +16,9 @@ const dataDir = path.join(root, '.data');
 async function main() {
   await ensureSystemPackages(['postgresql', 'ffmpeg']);
   await ensureNodeModules(root);
-  const cluster = await startCluster(dataDir, { preferredPort: 54329 });
-  log(`PostgreSQL running on 127.0.0.1:${cluster.port} (data in .data/pg)`);
+  const cluster = await startCloneCluster(root, { preferredPort: 54329 });
+  log(`PostgreSQL running on 127.0.0.1:${cluster.port}. ${cluster.where}`);
+  log(cluster.remove);
   let server = null;
   let stopping = false;
   const stop = async (code) => {

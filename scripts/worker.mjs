@@ -1,6 +1,6 @@
 // `npm run worker`: the extraction worker as a separate process. With
 // DATABASE_URL set it joins that database (another machine scaling out);
-// otherwise it uses the private PostgreSQL of `npm start` in .data/.
+// otherwise it uses the private PostgreSQL of `npm start` (see scripts/lib/pg-cluster.mjs).
 // Builtins only until `npm ci` has run.
 import { spawn } from 'node:child_process';
 import path from 'node:path';
@@ -8,7 +8,7 @@ import { fileURLToPath } from 'node:url';
 import { fail, log } from './lib/run.mjs';
 import { ensureSystemPackages } from './lib/system-packages.mjs';
 import { ensureNodeModules } from './lib/node-modules.mjs';
-import { startCluster } from './lib/pg-cluster.mjs';
+import { startCloneCluster } from './lib/pg-cluster.mjs';
 import { sessionSecret } from './lib/secrets.mjs';
 import { bin } from './lib/tool.mjs';
 
@@ -20,10 +20,10 @@ async function main() {
   await ensureNodeModules(root);
   let databaseUrl = process.env.DATABASE_URL;
   if (!databaseUrl) {
-    const cluster = await startCluster(dataDir, { preferredPort: 54329 });
+    const cluster = await startCloneCluster(root, { preferredPort: 54329 });
     databaseUrl = cluster.url('arcbench');
     // The cluster is shared with `npm start`, so the worker leaves it running when it stops.
-    log(`Using PostgreSQL on 127.0.0.1:${cluster.port} (data in .data/pg)`);
+    log(`Using PostgreSQL on 127.0.0.1:${cluster.port}. ${cluster.where}`);
   }
   const env = {
     ...process.env,

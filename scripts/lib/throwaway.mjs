@@ -3,22 +3,33 @@
 import { chmodSync, mkdtempSync, rmSync } from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
-import { log, run } from './run.mjs';
-import { freePort, startCluster } from './pg-cluster.mjs';
+import { isRoot, log, run } from './run.mjs';
+import { freePort, makeRootScratchHome, serviceUserCanReach, startCluster } from './pg-cluster.mjs';
 import { bin } from './tool.mjs';
 
 export async function startThrowaway(root, { database = 'arcbench_test' } = {}) {
   const tmp = mkdtempSync(path.join(os.tmpdir(), 'arcbench-test-'));
   chmodSync(tmp, 0o755);
+  // As root the cluster runs as `postgres`; when the temp folder is private
+  // (TMPDIR under a 0700 home) it goes to a scratch folder under /var/lib/arcbench.
+  const pgHome = isRoot() && !serviceUserCanReach(tmp) ? makeRootScratchHome('throwaway-') : tmp;
   process.env.ARCBENCH_PG_FSYNC = 'off'; // a throwaway cluster need not survive a power cut
-  const cluster = await startCluster(tmp, { preferredPort: await freePort() });
-  log(`Throwaway PostgreSQL on 127.0.0.1:${cluster.port} in ${tmp}`);
+  let cluster;
+  try {
+    cluster = await startCluster(pgHome, { preferredPort: await freePort() });
+  } catch (err) {
+    rmSync(tmp, { recursive: true, force: true });
+    if (pgHome !== tmp) rmSync(pgHome, { recursive: true, force: true });
+    throw err;
+  }
+  log(`Throwaway PostgreSQL on 127.0.0.1:${cluster.port} in ${pgHome} (removed when done)`);
   let cleaned = false;
   const cleanup = async () => {
     if (cleaned) return;
     cleaned = true;
     await cluster.stop();
     rmSync(tmp, { recursive: true, force: true });
+    if (pgHome !== tmp) rmSync(pgHome, { recursive: true, force: true });
   };
   const onSignal = async () => {
     await cleanup();
