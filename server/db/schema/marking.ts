@@ -1,5 +1,7 @@
-import { boolean, doublePrecision, index, integer, jsonb, pgTable, primaryKey, text, timestamp, unique, uuid } from 'drizzle-orm/pg-core';
+import { boolean, doublePrecision, index, integer, jsonb, pgTable, primaryKey, real, text, timestamp, unique, uuid } from 'drizzle-orm/pg-core';
 import type { PixelPoint } from '../../../shared/geometry/points';
+import type { MarkSource } from '../../../shared/schemas/auto-mark';
+import type { Downrange, TrackKind } from '../../../shared/schemas/marking';
 import { clips } from './clips';
 import { teams } from './teams';
 import { users } from './users';
@@ -42,7 +44,7 @@ export const calibrations = pgTable(
     levelP2UPx: doublePrecision('level_p2_u_px'),
     levelP2VPx: doublePrecision('level_p2_v_px'),
     levelAngleDeg: doublePrecision('level_angle_deg'),
-    downrange: text('downrange').$type<'right' | 'left'>().notNull().default('right'),
+    downrange: text('downrange').$type<Downrange>().notNull().default('right'),
     /** Roll actually used (from the line or as stated), degrees CCW on screen. */
     rollDeg: doublePrecision('roll_deg').notNull(),
     planeCorrection: jsonb('plane_correction').$type<StoredPlaneCorrection | null>(),
@@ -66,7 +68,7 @@ export const tracks = pgTable(
       .notNull()
       .references(() => teams.id, { onDelete: 'cascade' }),
     name: text('name').notNull(),
-    kind: text('kind').$type<'projectile' | 'muzzle'>().notNull().default('projectile'),
+    kind: text('kind').$type<TrackKind>().notNull().default('projectile'),
     /** Bumped by every mark write; each written mark takes the new value as its revision. */
     revision: integer('revision').notNull().default(0),
     createdBy: uuid('created_by').references(() => users.id, { onDelete: 'set null' }),
@@ -89,6 +91,14 @@ export const marks = pgTable(
     placedUPx: doublePrecision('placed_u_px').notNull(),
     placedVPx: doublePrecision('placed_v_px').notNull(),
     snapped: boolean('snapped').notNull().default(false),
+    /** Who placed it: 'hand', 'snap' (a person, snapped) or 'auto' (the automatic marker). */
+    source: text('source').$type<MarkSource>().notNull().default('hand'),
+    /** 0 … 1 for automatic marks; null for a person's. */
+    confidence: real('confidence'),
+    /** Short plain reason when an automatic mark's confidence is low. */
+    lowConfidenceReason: text('low_confidence_reason'),
+    /** The automatic run that wrote it (null for a person's marks). */
+    autoMarkRunId: uuid('auto_mark_run_id'),
     revision: integer('revision').notNull(),
     updatedBy: uuid('updated_by').references(() => users.id, { onDelete: 'set null' }),
     updatedAt: timestamp('updated_at', { withTimezone: true }).notNull().defaultNow(),

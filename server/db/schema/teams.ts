@@ -1,4 +1,4 @@
-import { index, pgTable, primaryKey, text, timestamp, uuid } from 'drizzle-orm/pg-core';
+import { index, pgTable, primaryKey, real, text, timestamp, uuid } from 'drizzle-orm/pg-core';
 import { teamRole } from './enums';
 import { users } from './users';
 
@@ -7,6 +7,8 @@ export const teams = pgTable('teams', {
   name: text('name').notNull(),
   slug: text('slug').notNull().unique(),
   siteName: text('site_name'),
+  /** Automatic marks below this confidence are flagged for review and left out of fits. */
+  autoMarkReviewThreshold: real('auto_mark_review_threshold').notNull().default(0.6),
   createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
 });
 
