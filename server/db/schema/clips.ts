@@ -42,6 +42,8 @@ export const clips = pgTable(
     status: text('status').$type<ClipStatus>().notNull().default('queued'),
     progress: real('progress').notNull().default(0),
     error: text('error'),
+    /** Set while a job waits for something outside the database to come back ('storage': the object store). */
+    waitingFor: text('waiting_for').$type<'storage'>(),
     extractedCount: integer('extracted_count').notNull().default(0),
     thumbnailCount: integer('thumbnail_count').notNull().default(0),
     /** The extraction job that owns the clip now; a superseded job's run must not touch the frames. */
