@@ -8,12 +8,12 @@ import { fitDragFree } from '../shared/physics/drag-free-fit';
 import { fitQuadraticDrag } from '../shared/physics/drag-fit';
 import { fitShot } from '../shared/physics/fit-shot';
 import { dragKFromCd, simulateTrajectory } from '../shared/physics/flight';
-import type { Mark } from '../shared/physics/types';
+import type { FitMark } from '../shared/physics/types';
 
 const BALL = { massKg: 0.058, diameterM: 0.065, airDensityKgM3: 1.225 };
 const TARGET_MS_500 = 20;
 
-function shotMarks(count: number, frameRateHz: number): Mark[] {
+function shotMarks(count: number, frameRateHz: number): FitMark[] {
   const k = dragKFromCd(0.47, BALL.diameterM, BALL.massKg, BALL.airDensityKgM3);
   const th = (40 * Math.PI) / 180;
   const times = Array.from({ length: count }, (_, i) => i / frameRateHz);

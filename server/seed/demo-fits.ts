@@ -2,6 +2,7 @@ import { mulberry32, normalDeviates } from '../../shared/random/prng';
 import { readFile } from 'node:fs/promises';
 import { and, eq } from 'drizzle-orm';
 import { buildCalibrationTransform } from '../../shared/geometry/calibration-transform';
+import type { TrackKind } from '../../shared/schemas/marking';
 import { audit } from '../audit';
 import { loadConfig } from '../config';
 import type { Db } from '../db/client';
@@ -65,7 +66,7 @@ async function ensureCalibration(db: Db, clipId: string, truth: ClipTruth, creat
   await db.insert(calibrations).values({ clipId, version: 1, ...calibrationValues(body, buildCalibrationTransform(body)), createdBy });
 }
 
-async function ensureTrack(db: Db, teamId: string, clipId: string, name: string, kind: 'projectile' | 'muzzle', points: { frameNumber: number; u: number; v: number }[], by: string | null) {
+async function ensureTrack(db: Db, teamId: string, clipId: string, name: string, kind: TrackKind, points: { frameNumber: number; u: number; v: number }[], by: string | null) {
   const [existing] = await db.select({ id: tracks.id }).from(tracks).where(and(eq(tracks.clipId, clipId), eq(tracks.name, name)));
   if (existing) return existing.id;
   return db.transaction(async (tx) => {

@@ -9,7 +9,7 @@ import type { FitInputSnapshot } from '../../shared/fits/snapshot';
 import { fitShot } from '../../shared/physics/fit-shot';
 import { dragKFromCd, simulateTrajectory } from '../../shared/physics/flight';
 import { forecastShot } from '../../shared/physics/forecast';
-import type { Mark } from '../../shared/physics/types';
+import type { FitMark } from '../../shared/physics/types';
 import { modelSpeedMps, launcherModelFor, muzzleSpeedFromEfficiency } from '../../shared/presets/launcher-speed';
 import { mulberry32, normalDeviates } from '../../shared/random/prng';
 import type { Db } from '../db/client';
@@ -56,7 +56,7 @@ export async function createSimulatedApprovedFit(
   const path = simulateTrajectory({ dragK_perM: k }, { xM: 0, yM: 0, vxMps: speed * Math.cos(th), vyMps: speed * Math.sin(th) }, { timesS: [0, ...times] });
   const noise = normalDeviates(mulberry32(spec.seed));
   const sigma = spec.markSigmaM ?? 0.002;
-  const marks: Mark[] = path.points.slice(1).map((p) => ({ tS: p.tS, xM: p.xM + sigma * noise(), yM: p.yM + sigma * noise(), sigmaM: sigma }));
+  const marks: FitMark[] = path.points.slice(1).map((p) => ({ tS: p.tS, xM: p.xM + sigma * noise(), yM: p.yM + sigma * noise(), sigmaM: sigma }));
   const fitInput = {
     marks,
     massKg: projectile.massKg,

@@ -3,7 +3,7 @@
 // the very same numbers.
 import { STANDARD_GRAVITY_MPS2 } from '../physics/constants';
 import { simulateTrajectory } from '../physics/flight';
-import type { FitShotResult, Mark } from '../physics/types';
+import type { FitShotResult, FitMark } from '../physics/types';
 
 export interface CurvePoint {
   tS: number;
@@ -58,7 +58,7 @@ export interface FitCurves {
 }
 
 /** Both fitted paths, densely sampled over the marked span. */
-export function fitCurves(result: FitShotResult, marks: Pick<Mark, 'tS'>[], gravityMps2?: number, count = 120): FitCurves {
+export function fitCurves(result: FitShotResult, marks: Pick<FitMark, 'tS'>[], gravityMps2?: number, count = 120): FitCurves {
   const t0 = result.tRefS;
   const t1 = marks.length ? Math.max(...marks.map((m) => m.tS)) : t0;
   const times = evenTimes(t0, t1, count);
@@ -76,7 +76,7 @@ export interface FiniteDifferenceSpeed {
  * frame rates, so the default stride spans about a twentieth of the track:
  * noise falls with the stride while the curve's shape stays visible.
  */
-export function finiteDifferenceSpeeds(marks: Mark[], stride = Math.max(1, Math.round(marks.length / 20))): FiniteDifferenceSpeed[] {
+export function finiteDifferenceSpeeds(marks: FitMark[], stride = Math.max(1, Math.round(marks.length / 20))): FiniteDifferenceSpeed[] {
   const sorted = [...marks].sort((a, b) => a.tS - b.tS);
   const out: FiniteDifferenceSpeed[] = [];
   for (let i = stride; i < sorted.length; i++) {
@@ -101,7 +101,7 @@ export interface MarkWithFit {
 }
 
 /** Each mark beside the headline model's position at its time, residual = observed − fitted. */
-export function marksWithFit(result: FitShotResult, marks: Mark[], gravityMps2?: number): MarkWithFit[] {
+export function marksWithFit(result: FitShotResult, marks: FitMark[], gravityMps2?: number): MarkWithFit[] {
   const sorted = [...marks].sort((a, b) => a.tS - b.tS);
   const fitted = dragPathAt(result, sorted.map((m) => m.tS), gravityMps2);
   return sorted.map((m, i) => {

@@ -1,4 +1,5 @@
 import { applyHomography, invertHomography, solveHomography, type Homography } from './homography';
+import type { Downrange, LevelInput, PlaneCorrectionInput, ScaleReference } from '../schemas/marking';
 import { GeometryError, distancePx, type PixelPoint, type WorldPoint } from './points';
 import { scaleWithUncertainty } from './scale-uncertainty';
 
@@ -10,14 +11,14 @@ import { scaleWithUncertainty } from './scale-uncertainty';
 //   4. divide by pixels per metre (measured in rectified pixels);
 //   5. mirror x when the shot flies to the left on screen.
 
-export type LevelGeometry = { kind: 'line'; p1: PixelPoint; p2: PixelPoint } | { kind: 'angle'; rollDeg: number };
-
+/** A calibration as the transform needs it: the wire types of shared/schemas/marking.ts, defaults applied. */
 export interface CalibrationGeometry {
-  scale: { p1: PixelPoint; p2: PixelPoint; lengthM: number; lengthTolM: number; endpointSigmaPx: number };
+  scale: ScaleReference;
   origin: PixelPoint;
-  level: LevelGeometry;
-  downrange: 'right' | 'left';
-  plane: { corners: readonly PixelPoint[]; widthM: number; heightM: number } | null;
+  level: LevelInput;
+  downrange: Downrange;
+  /** Corners as a list, so stored records (JSON arrays) fit; the request schema pins them to four. */
+  plane: (Omit<PlaneCorrectionInput, 'corners'> & { corners: readonly PixelPoint[] }) | null;
 }
 
 export interface CalibrationTransform {

@@ -10,7 +10,7 @@
 import { STANDARD_GRAVITY_MPS2 } from './constants';
 import { PositionSampler, type FlightModel, type LaunchState } from './flight';
 import { leastSquares, type LeastSquaresResult } from './least-squares';
-import type { Mark } from './types';
+import type { FitMark } from './types';
 
 export const DRAG_PARAMETER_NAMES = ['x0M', 'y0M', 'launchSpeedMps', 'launchAngleRad', 'dragK_perM'] as const;
 
@@ -36,7 +36,7 @@ export function launchFromParams(p: ArrayLike<number>): LaunchState {
 const CBRT_EPS = Math.cbrt(Number.EPSILON);
 const SQRT_EPS = Math.sqrt(Number.EPSILON);
 
-export function fitQuadraticDrag(marks: Mark[], options: DragFitOptions): DragFit {
+export function fitQuadraticDrag(marks: FitMark[], options: DragFitOptions): DragFit {
   const n = marks.length;
   const g = options.gravityMps2 ?? STANDARD_GRAVITY_MPS2;
   const times = Float64Array.from(marks, (m) => m.tS);

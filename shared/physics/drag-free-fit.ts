@@ -6,7 +6,7 @@ import { STANDARD_GRAVITY_MPS2 } from './constants';
 import { estimate, RAD_TO_DEG } from './estimate';
 import { aicGaussian, bicGaussian } from './information-criteria';
 import { linearLeastSquares } from './linear-least-squares';
-import type { DragFreeFit, Estimate, Mark } from './types';
+import type { DragFreeFit, Estimate, FitMark } from './types';
 
 export interface DragFreeDetail {
   result: DragFreeFit;
@@ -26,7 +26,7 @@ export function speedAndAngle(vx: number, vy: number, cov: number[][]): { speed:
   return { speed, speedSe: Math.sqrt(q(gs)), angle: Math.atan2(vy, vx), angleSe: Math.sqrt(q(ga)) };
 }
 
-function weightsOf(marks: Mark[]): number[] | undefined {
+function weightsOf(marks: FitMark[]): number[] | undefined {
   if (!marks.some((m) => m.sigmaM !== undefined)) return undefined;
   const w = marks.map((m) => 1 / (m.sigmaM as number));
   return [...w, ...w];
@@ -36,7 +36,7 @@ function weightsOf(marks: Mark[]): number[] | undefined {
  * Joint fit of x(t) = x0 + vx tau and y(t) = y0 + vy tau - g tau^2 / 2,
  * tau = t - tRef, over all marks, with one pooled residual variance.
  */
-export function fitDragFree(marks: Mark[], gravityMps2 = STANDARD_GRAVITY_MPS2, tRefS = marks[0].tS): DragFreeDetail {
+export function fitDragFree(marks: FitMark[], gravityMps2 = STANDARD_GRAVITY_MPS2, tRefS = marks[0].tS): DragFreeDetail {
   const n = marks.length;
   const w = weightsOf(marks);
   const design: number[][] = [];

@@ -1,6 +1,6 @@
 // marks.csv -> marks. Header t_s,x_m,y_m with optional sigma_m; columns may
 // come in any order, extra columns are ignored. Errors are one line each.
-import type { Mark } from './types';
+import type { FitMark } from './types';
 import { FitInputError, validateMarks } from './validate-marks';
 
 const REQUIRED = ['t_s', 'x_m', 'y_m'] as const;
@@ -14,7 +14,7 @@ function parseNumber(text: string, column: string, lineNo: number): number {
   return Number(s);
 }
 
-export function parseMarksCsv(text: string): Mark[] {
+export function parseMarksCsv(text: string): FitMark[] {
   const lines = text.replace(/^\uFEFF/, '').split(/\r?\n/);
   const headerIndex = lines.findIndex((l) => l.trim() !== '');
   if (headerIndex < 0) throw new FitInputError('marks CSV is empty');
@@ -23,7 +23,7 @@ export function parseMarksCsv(text: string): Mark[] {
     if (!header.includes(col)) throw new FitInputError(`marks CSV is missing the ${col} column (header: ${header.join(',')})`);
   }
   const idx = { t: header.indexOf('t_s'), x: header.indexOf('x_m'), y: header.indexOf('y_m'), s: header.indexOf('sigma_m') };
-  const marks: Mark[] = [];
+  const marks: FitMark[] = [];
   for (let i = headerIndex + 1; i < lines.length; i++) {
     if (lines[i].trim() === '') continue;
     const lineNo = i + 1;
@@ -31,7 +31,7 @@ export function parseMarksCsv(text: string): Mark[] {
     if (cells.length !== header.length) {
       throw new FitInputError(`line ${lineNo}: expected ${header.length} fields, found ${cells.length}`);
     }
-    const mark: Mark = {
+    const mark: FitMark = {
       tS: parseNumber(cells[idx.t], 't_s', lineNo),
       xM: parseNumber(cells[idx.x], 'x_m', lineNo),
       yM: parseNumber(cells[idx.y], 'y_m', lineNo),

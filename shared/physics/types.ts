@@ -1,7 +1,12 @@
 // Input and result types of fitShot. Everything here is plain data (numbers,
 // strings, booleans, arrays, nulls) so a result survives JSON unchanged.
 
-export interface Mark {
+/**
+ * A mark as the fit sees it: capture time and world position. (The API's
+ * `Mark` in shared/schemas/marking.ts is the stored mark, with pixels, revision
+ * and who placed it.)
+ */
+export interface FitMark {
   tS: number;
   xM: number;
   yM: number;
@@ -37,7 +42,7 @@ export interface InputUncertainties {
 }
 
 export interface FitShotInput {
-  marks: Mark[];
+  marks: FitMark[];
   massKg: number;
   diameterM: number;
   airDensityKgM3: number;

@@ -1,4 +1,5 @@
 // Input checks shared by fitShot and the CSV reader, with one-line messages.
+import type { FitMark } from './types';
 
 /** Parameters of the drag model; a fit needs at least this many marks. */
 export const DRAG_MODEL_PARAMETER_COUNT = 5;
@@ -10,9 +11,7 @@ export class FitInputError extends Error {
   }
 }
 
-interface MarkLike { tS: number; xM: number; yM: number; sigmaM?: number }
-
-export function validateMarks(marks: MarkLike[]): void {
+export function validateMarks(marks: FitMark[]): void {
   if (!Array.isArray(marks)) throw new FitInputError('marks must be an array');
   if (marks.length < DRAG_MODEL_PARAMETER_COUNT) {
     throw new FitInputError(

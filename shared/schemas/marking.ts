@@ -1,4 +1,6 @@
 import { z } from 'zod';
+import { PixelPoint } from '../geometry/points';
+import { MarkSource } from './auto-mark';
 import { Uuid } from './common';
 
 // Contract of the calibrate-and-mark API (docs/marking-api.md explains the
@@ -7,10 +9,6 @@ import { Uuid } from './common';
 // coordinates: metres, x to the right/downrange, y up.
 
 const finite = (what: string) => z.number({ error: `${what} must be a number` }).refine(Number.isFinite, `${what} must be finite`);
-
-/** A point on the frame in pixels. */
-export const PixelPoint = z.object({ u: finite('u'), v: finite('v') });
-export type PixelPoint = z.infer<typeof PixelPoint>;
 
 export const ClipParams = z.object({ teamId: Uuid, clipId: Uuid });
 export const TrackParams = z.object({ teamId: Uuid, trackId: Uuid });
@@ -94,7 +92,7 @@ export const Calibration = z.object({
   clipId: Uuid,
   /** 1, 2, … per clip; the highest is current. */
   version: z.number().int(),
-  scale: z.object({ p1: PixelPoint, p2: PixelPoint, lengthM: z.number(), lengthTolM: z.number(), endpointSigmaPx: z.number() }),
+  scale: ScaleReference,
   origin: PixelPoint,
   level: LevelInput,
   downrange: Downrange,
@@ -166,6 +164,12 @@ export const Mark = z.object({
   placedUPx: z.number(),
   placedVPx: z.number(),
   snapped: z.boolean(),
+  /** Who placed it (shared/schemas/auto-mark.ts): a person by hand, a person with the snap, or the automatic marker. */
+  source: MarkSource,
+  /** 0 … 1 for automatic marks; null for a person's. */
+  confidence: z.number().nullable(),
+  /** Why an automatic mark's confidence is low (e.g. 'weak contrast'); else null. */
+  lowConfidenceReason: z.string().nullable(),
   /** Version token of this mark; send it back as expectedRevision. Unique within the track, never reused. */
   revision: z.number().int(),
   updatedBy: PersonRef.nullable(),

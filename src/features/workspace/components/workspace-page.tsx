@@ -4,7 +4,7 @@ import { Button } from '@/components/ui/button';
 import { EmptyState } from '@/components/ui/empty-state';
 import { LoadingBlock } from '@/components/ui/spinner';
 import { ProgressBar } from '@/components/ui/progress-bar';
-import type { Mark } from '@shared/physics/types';
+import type { FitMark } from '@shared/physics/types';
 import { transformOfDraft } from '../editor/calibration-geometry';
 import { marksOfTrack } from '../editor/editor-store';
 import { zoomAtCursor } from '../editor/tools/view-behaviour';
@@ -62,7 +62,7 @@ function Workspace({ teamId, clipId }: { teamId: string; clipId: string }) {
     const marks = marksOfTrack(editor.getState(), activeTrackId);
     if (!transform || marks.length === 0) return { worldMarks: null, nextTS: null, markCount: marks.length };
     const timeOf = new Map(frames.map((f, i) => [f.frameNumber, i]));
-    const world: Mark[] = [];
+    const world: FitMark[] = [];
     for (const m of marks) {
       const i = timeOf.get(m.frameNumber);
       if (i === undefined) continue;

@@ -2,11 +2,11 @@
 // Runs the preview fits off the main thread: a drag fit takes tens of
 // milliseconds, which would otherwise stall clicking and stepping.
 import { flightPreview } from './flight-preview';
-import type { Mark } from '@shared/physics/types';
+import type { FitMark } from '@shared/physics/types';
 
 export interface PreviewRequest {
   id: number;
-  marks: Mark[];
+  marks: FitMark[];
   nextTS: number;
 }
 

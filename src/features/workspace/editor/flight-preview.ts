@@ -6,7 +6,7 @@ import { fitQuadraticDrag, launchFromParams } from '@shared/physics/drag-fit';
 import { fitDragFree } from '@shared/physics/drag-free-fit';
 import { simulateTrajectory } from '@shared/physics/flight';
 import { STANDARD_GRAVITY_MPS2 } from '@shared/physics/constants';
-import type { Mark } from '@shared/physics/types';
+import type { FitMark } from '@shared/physics/types';
 
 export const PREVIEW_MIN_MARKS = 5;
 
@@ -30,7 +30,7 @@ export interface FlightPreview {
 }
 
 /** `marks` sorted by time; `nextTS` the time of the frame after the last mark. */
-export function flightPreview(marks: Mark[], nextTS: number, samples = 48): FlightPreview | null {
+export function flightPreview(marks: FitMark[], nextTS: number, samples = 48): FlightPreview | null {
   if (marks.length < PREVIEW_MIN_MARKS) return null;
   const t0 = marks[0].tS;
   const tEnd = Math.max(nextTS, marks[marks.length - 1].tS);

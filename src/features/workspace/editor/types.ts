@@ -2,12 +2,12 @@
 // the full-resolution frame: u to the right, v downwards, (0, 0) at the
 // top-left corner of the top-left pixel.
 
-export interface Point {
-  u: number;
-  v: number;
-}
+import type { PixelPoint } from '@shared/geometry/points';
+import type { Downrange, LevelInput, PlaneCorrectionInput, ScaleReference, TrackKind } from '@shared/schemas/marking';
 
-export type TrackKind = 'projectile' | 'muzzle';
+/** The editor's short name for the one pixel point type. */
+export type Point = PixelPoint;
+export type { TrackKind };
 
 export interface EditorTrack {
   id: string;
@@ -32,24 +32,10 @@ export interface FrameInfo {
   tS: number;
 }
 
-/** Scale reference: two end points of something of known length. */
-export interface ScaleDraft {
-  p1: Point;
-  p2: Point;
-  lengthM: number;
-  /** Stated tolerance ±a of the length. */
-  lengthTolM: number;
-}
-
-/** Camera roll either from two points on a level line or as a stated angle. */
-export type LevelDraft = { kind: 'line'; p1: Point; p2: Point } | { kind: 'angle'; rollDeg: number };
-
-/** Four image points of a known rectangle in the flight plane: top-left, top-right, bottom-right, bottom-left as it stands. */
-export interface PlaneDraft {
-  corners: [Point, Point, Point, Point];
-  widthM: number;
-  heightM: number;
-}
+/** Scale reference as drawn (the click uncertainty is added when the draft is saved). */
+export type ScaleDraft = Omit<ScaleReference, 'endpointSigmaPx'>;
+export type LevelDraft = LevelInput;
+export type PlaneDraft = PlaneCorrectionInput;
 
 export interface CalibrationDraft {
   scale: ScaleDraft | null;
@@ -57,7 +43,7 @@ export interface CalibrationDraft {
   level: LevelDraft | null;
   plane: PlaneDraft | null;
   /** Which way the shot flies on screen. */
-  downrange: 'right' | 'left';
+  downrange: Downrange;
 }
 
 export const EMPTY_CALIBRATION: CalibrationDraft = { scale: null, origin: null, level: null, plane: null, downrange: 'right' };

@@ -1,11 +1,11 @@
 import { useEffect, useRef, useState } from 'react';
-import type { Mark } from '@shared/physics/types';
+import type { FitMark } from '@shared/physics/types';
 import type { FlightPreview } from '../editor/flight-preview';
 import { PREVIEW_MIN_MARKS } from '../editor/flight-preview';
 import type { PreviewRequest } from '../editor/flight-preview-worker';
 
 /** Fits the preview curves in a worker whenever the world marks change; the latest answer wins. */
-export function useFlightPreview(marks: Mark[] | null, nextTS: number | null): FlightPreview | null {
+export function useFlightPreview(marks: FitMark[] | null, nextTS: number | null): FlightPreview | null {
   const [preview, setPreview] = useState<FlightPreview | null>(null);
   const worker = useRef<Worker | null>(null);
   const lastId = useRef(0);

@@ -1,6 +1,6 @@
 // Synthetic marks from a known shot, for round-trip tests and the bench.
 import { simulateTrajectory } from '../../../../shared/physics/flight';
-import type { Mark } from '../../../../shared/physics/types';
+import type { FitMark } from '../../../../shared/physics/types';
 import { gaussian, mulberry32 } from './prng';
 
 export interface SyntheticShot {
@@ -17,7 +17,7 @@ export interface SyntheticShot {
   firstMarkS?: number;
 }
 
-export function syntheticMarks(shot: SyntheticShot): Mark[] {
+export function syntheticMarks(shot: SyntheticShot): FitMark[] {
   const t0 = shot.firstMarkS ?? 0;
   const times = Array.from({ length: shot.markCount }, (_, i) => t0 + i / shot.frameRateHz);
   const th = (shot.angleDeg * Math.PI) / 180;
