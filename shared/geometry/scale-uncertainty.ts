@@ -6,11 +6,18 @@
 //    reference, so the pixel length L_px = |p2 − p1| has u = √(σ² + σ²) = √2·σ;
 //  - ppm = L_px / L is a quotient, so relative uncertainties add in
 //    quadrature (§5.1.6, law of propagation for products and quotients).
+// This is the only place a scale reference becomes an uncertainty: calibrations
+// (through buildCalibrationTransform) and fitShot's `uncertainties.scale` both use it.
+import { rectangularStdUncertainty } from '../uncertainty/gum';
 
+/** A scale reference reduced to what its uncertainty depends on (the wire type with end points is ScaleReference in shared/schemas/marking.ts). */
 export interface ScaleInput {
+  /** Distance between the two end points, pixels (after any plane correction). */
   lengthPx: number;
   lengthM: number;
+  /** Stated tolerance ±a of the length: a half-width, not a standard uncertainty. */
   lengthTolM: number;
+  /** Standard uncertainty of placing each end point, pixels. */
   endpointSigmaPx: number;
 }
 
@@ -29,7 +36,7 @@ export function scaleWithUncertainty({ lengthPx, lengthM, lengthTolM, endpointSi
   if (!(lengthPx > 0)) throw new RangeError('scale reference has zero pixel length');
   if (!(lengthM > 0)) throw new RangeError('scale length must be positive');
   const pixelsPerMetre = lengthPx / lengthM;
-  const lengthRel = lengthTolM / Math.sqrt(3) / lengthM;
+  const lengthRel = rectangularStdUncertainty(lengthTolM) / lengthM;
   const pixelRel = (Math.SQRT2 * endpointSigmaPx) / lengthPx;
   const relStdUncertainty = Math.hypot(lengthRel, pixelRel);
   return { pixelsPerMetre, relStdUncertainty, stdUncertainty: relStdUncertainty * pixelsPerMetre, lengthRel, pixelRel };

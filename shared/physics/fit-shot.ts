@@ -1,6 +1,7 @@
 // fitShot: from marks to launch speed, angle and drag with honest intervals.
 // Pure and deterministic: the same input gives a bit-identical result, and
 // the result is plain JSON-safe data.
+import { scaleWithUncertainty } from '../geometry/scale-uncertainty';
 import { speedOfSoundMps, sutherlandViscosityPaS } from './air';
 import { SEA_LEVEL_TEMPERATURE_K, STANDARD_GRAVITY_MPS2 } from './constants';
 import { ballisticCoefficientKgM2, checkFlow } from './derived';
@@ -17,14 +18,10 @@ import type {
 } from './types';
 import { FitInputError, requirePositive, validateMarks } from './validate-marks';
 
-/** Relative standard uncertainty of the scale factor from a marked reference. */
+/** Relative standard uncertainty of the scale factor: from a marked reference (the calibration's own rule), else as stated. */
 export function scaleRelativeUncertainty(u: InputUncertainties | undefined): number {
   if (!u) return 0;
-  if (u.scale) {
-    const s = u.scale;
-    // Two end points marked independently: the pixel length carries sqrt(2) sigma_px.
-    return Math.hypot(s.referenceToleranceM / s.referenceLengthM, (Math.SQRT2 * s.endPointSigmaPx) / s.referenceLengthPx);
-  }
+  if (u.scale) return scaleWithUncertainty(u.scale).relStdUncertainty;
   return u.scaleRelative ?? 0;
 }
 

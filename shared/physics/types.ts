@@ -1,5 +1,6 @@
 // Input and result types of fitShot. Everything here is plain data (numbers,
 // strings, booleans, arrays, nulls) so a result survives JSON unchanged.
+import type { ScaleInput } from '../geometry/scale-uncertainty';
 
 /**
  * A mark as the fit sees it: capture time and world position. (The API's
@@ -21,22 +22,13 @@ export interface Estimate {
   ci95: [number, number];
 }
 
-/** How the pixel-to-metre scale was set: a reference of known length marked in the image. */
-export interface ScaleReference {
-  referenceLengthM: number;
-  /** Standard uncertainty of the reference's true length. */
-  referenceToleranceM: number;
-  referenceLengthPx: number;
-  /** Standard uncertainty of marking each end point of the reference. */
-  endPointSigmaPx: number;
-}
-
 /** Standard uncertainties (one sigma) of the inputs. All optional. */
 export interface InputUncertainties {
   massKg?: number;
   diameterM?: number;
   airDensityKgM3?: number;
-  scale?: ScaleReference;
+  /** The scale reference the marks were measured with; its ±tolerance is converted by the GUM rule (a/√3). */
+  scale?: ScaleInput;
   /** Alternative to scale: the relative standard uncertainty of the scale factor. */
   scaleRelative?: number;
 }

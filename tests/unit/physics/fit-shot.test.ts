@@ -85,11 +85,12 @@ describe('fitShot synthetic round trip', () => {
       marks, ...BALL,
       uncertainties: {
         massKg: 0.00058, diameterM: 0.00065, airDensityKgM3: 0.01225,
-        scale: { referenceLengthM: 1, referenceToleranceM: 0.002, referenceLengthPx: 1000, endPointSigmaPx: 1 },
+        scale: { lengthM: 1, lengthTolM: 0.002, lengthPx: 1000, endpointSigmaPx: 1 },
       },
     });
     const by = Object.fromEntries(r.uncertaintyBreakdown.map((b) => [b.source, b]));
-    const uScale = Math.hypot(0.002, Math.SQRT2 / 1000);
+    // ±2 mm is a tolerance (rectangular, u = a/√3, GUM JCGM 100:2008 §4.3.7); each end point σ = 1 px.
+    const uScale = Math.hypot(0.002 / Math.sqrt(3), Math.SQRT2 / 1000);
     // Speed's relative error from scale equals the scale's relative error.
     expect(by['scale'].launchSpeedMps / r.launchSpeedMps.value).toBeCloseTo(uScale, 12);
     // Cd = 2 m k / (rho A): 1 % in m -> 1 %, 1 % in d -> 2 %, 1 % in rho -> 1 %.
