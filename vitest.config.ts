@@ -16,7 +16,7 @@ export default defineConfig({
         resolve: { alias },
         test: {
           name: 'unit',
-          include: ['tests/unit/**/*.test.ts', 'shared/**/*.test.ts', 'src/**/*.test.ts', 'server/**/*.test.ts'],
+          include: ['tests/unit/**/*.test.ts', 'tests/architecture/**/*.test.ts', 'shared/**/*.test.ts', 'src/**/*.test.ts', 'server/**/*.test.ts'],
           environment: 'node',
         },
       },

@@ -1,12 +1,20 @@
 // Reader for the NIST StRD nonlinear regression files (National Institute of
 // Standards and Technology, Statistical Reference Datasets, Nonlinear
-// Regression). The files are read where they live; nothing is copied here.
+// Regression). The files are vendored in fixtures/nist-strd (public-domain US
+// government data; fixtures/nist-strd/README.md names the source).
 import fs from 'node:fs';
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
 
-const repoRoot = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '../../../..');
-export const NIST_STRD_DIR = process.env.NIST_STRD_DIR ?? path.resolve(repoRoot, '../shared/reference/nist-strd');
+/** The repository root: the nearest folder above this file holding package.json (so the reader survives a move). */
+function findRepoRoot(from: string): string {
+  for (let dir = from; ; dir = path.dirname(dir)) {
+    if (fs.existsSync(path.join(dir, 'package.json'))) return dir;
+    if (path.dirname(dir) === dir) throw new Error(`no package.json above ${from}`);
+  }
+}
+
+export const NIST_STRD_DIR = path.join(findRepoRoot(path.dirname(fileURLToPath(import.meta.url))), 'fixtures', 'nist-strd');
 
 /** model(b, x) where x holds the predictor(s) of one observation. */
 type Model = (b: Float64Array, x: number[]) => number;
