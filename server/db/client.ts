@@ -3,6 +3,12 @@ import pg from 'pg';
 
 export type Db = NodePgDatabase;
 
+/** The handle db.transaction() passes to its callback; defined once so helpers that join a caller's transaction share it. */
+export type Tx = Parameters<Parameters<Db['transaction']>[0]>[0];
+
+/** What a query helper runs on: the pooled database or a transaction already open (a Tx lacks the pool's `$client`). */
+export type DbOrTx = Db | Tx;
+
 export interface Database {
   pool: pg.Pool;
   db: Db;

@@ -5,7 +5,7 @@
 //    is flagged "inputs changed since review".
 import { and, eq, inArray, max } from 'drizzle-orm';
 import type { Staleness } from '../../shared/schemas/fits';
-import type { Db } from '../db/client';
+import type { DbOrTx } from '../db/client';
 import { fits } from '../db/schema/fits';
 import { calibrations, tracks } from '../db/schema/marking';
 
@@ -18,7 +18,7 @@ export interface FitVersions {
   state: string;
 }
 
-export async function currentVersions(db: Db, rows: Pick<FitVersions, 'trackId' | 'clipId'>[]) {
+export async function currentVersions(db: DbOrTx, rows: Pick<FitVersions, 'trackId' | 'clipId'>[]) {
   const trackIds = [...new Set(rows.map((r) => r.trackId))];
   const clipIds = [...new Set(rows.map((r) => r.clipId))];
   const [trackRows, calRows] = await Promise.all([
@@ -54,7 +54,7 @@ export function stalenessOf(fit: FitVersions, current: Awaited<ReturnType<typeof
  * Moves fits awaiting review whose inputs changed to 'stale'. Called on read
  * (detail, lists, review), so no other area has to know about fits.
  */
-export async function refreshStaleness(db: Db, rows: FitVersions[]): Promise<Map<string, Staleness>> {
+export async function refreshStaleness(db: DbOrTx, rows: FitVersions[]): Promise<Map<string, Staleness>> {
   const current = await currentVersions(db, rows);
   const out = new Map<string, Staleness>();
   const nowStale: string[] = [];

@@ -1,4 +1,5 @@
 import type { Response } from 'express';
+import type { Actor } from '../auth/actor';
 import type { Parsed, Schemas } from './validate';
 
 /** The validated input of the request; `schemas` names the same schemas the route's validate() used, for typing only. */
@@ -16,4 +17,9 @@ export function currentTeam(res: Response) {
   const team = res.locals.team;
   if (!team) throw new Error('currentTeam() used on a route without teamRole()');
   return team;
+}
+
+/** The signed-in user acting in the team of the path, as services take it. */
+export function actorOf(res: Response): Actor {
+  return { teamId: currentTeam(res).id, userId: currentUser(res).id };
 }

@@ -4,7 +4,7 @@ import type { FitCandidate, PresetDetail, PresetSummary, PresetVersion } from '.
 import { fitContribution } from '../../shared/presets/fit-values';
 import { launcherModelFor } from '../../shared/presets/launcher-speed';
 import { diffVersions } from '../../shared/presets/version-diff';
-import type { Db } from '../db/client';
+import type { Db, DbOrTx } from '../db/client';
 import { fits } from '../db/schema/fits';
 import { designPresets, presetVersions } from '../db/schema/presets';
 import { launchers, projectiles, shots } from '../db/schema/records';
@@ -116,7 +116,7 @@ export async function presetList(db: Db, teamId: string): Promise<PresetSummary[
 }
 
 /** One version by number, or the latest when none is asked for. */
-export async function pickVersion(db: Db, presetId: string, version?: number): Promise<VersionRow> {
+export async function pickVersion(db: DbOrTx, presetId: string, version?: number): Promise<VersionRow> {
   const [row] = version
     ? await db.select().from(presetVersions).where(and(eq(presetVersions.presetId, presetId), eq(presetVersions.version, version)))
     : await db.select().from(presetVersions).where(eq(presetVersions.presetId, presetId)).orderBy(desc(presetVersions.version)).limit(1);

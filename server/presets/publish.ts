@@ -117,7 +117,7 @@ export async function publishVersion(db: Db, teamId: string, userId: string | nu
   return db.transaction(async (tx) => {
     // Lock the preset row so two engineers publishing at once get versions n+1 and n+2, not a clash.
     await tx.execute(sql`select id from design_presets where id = ${l.preset.id} for update`);
-    const previous = await pickVersion(tx as unknown as Db, l.preset.id);
+    const previous = await pickVersion(tx, l.preset.id);
     const cd = pooled.dragCoefficient;
     const eta = pooled.efficiency;
     const cdCount = cd.count;

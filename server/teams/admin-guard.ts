@@ -1,10 +1,8 @@
 import { and, asc, eq } from 'drizzle-orm';
 import type { Role } from '../../shared/roles';
-import type { Db } from '../db/client';
+import type { Tx } from '../db/client';
 import { memberships } from '../db/schema/teams';
 import { conflict, notFound } from '../http/problem';
-
-type Tx = Parameters<Parameters<Db['transaction']>[0]>[0];
 
 /**
  * Locks the team's admin memberships, then the target's, inside `tx`.
