@@ -7,6 +7,8 @@ import { airForFit } from '../../shared/fits/air-conditions';
 import type { FitInputSnapshot, SnapshotMark } from '../../shared/fits/snapshot';
 import { buildCalibrationTransform, type CalibrationGeometry } from '../../shared/geometry/calibration-transform';
 import type { FitShotInput } from '../../shared/physics/types';
+import { isFlagged, type FitMarkCounts } from '../../shared/schemas/auto-mark';
+import { reviewThresholdOf } from '../automark/settings';
 import type { Db } from '../db/client';
 import { clips } from '../db/schema/clips';
 import { marks, tracks } from '../db/schema/marking';
@@ -53,9 +55,20 @@ export async function buildFitSnapshot(db: Db, teamId: string, trackId: string):
     ? await db.select().from(marks).where(eq(marks.trackId, muzzleTrack.id)).orderBy(asc(marks.frameNumber)).limit(1)
     : [];
 
-  const timeOf = await loadFrameTimes(db, clip, markRows.map((m) => m.frameNumber));
+  // Automatic marks below the team's review threshold wait for a person's look and stay out of the fit.
+  const reviewThreshold = await reviewThresholdOf(db, teamId);
+  const leftOutRows = markRows.filter((m) => isFlagged(m, reviewThreshold));
+  const fitRows = markRows.filter((m) => !isFlagged(m, reviewThreshold));
+  const markCounts: FitMarkCounts = {
+    automatic: fitRows.filter((m) => m.source === 'auto').length,
+    byHand: fitRows.filter((m) => m.source !== 'auto').length,
+    leftOut: leftOutRows.length,
+    reviewThreshold,
+    leftOutFrames: leftOutRows.map((m) => ({ frameNumber: m.frameNumber, confidence: m.confidence ?? 0, reason: m.lowConfidenceReason })),
+  };
+  const timeOf = await loadFrameTimes(db, clip, fitRows.map((m) => m.frameNumber));
   const snapshotMarks: SnapshotMark[] = [];
-  for (const m of markRows) {
+  for (const m of fitRows) {
     const tS = timeOf(m.frameNumber);
     if (tS === null) throw unprocessable(`Frame ${m.frameNumber} has no time: the clip has no frame table and no capture rate.`);
     const w = transform.imageToWorld({ u: m.uPx, v: m.vPx });
@@ -115,6 +128,7 @@ export async function buildFitSnapshot(db: Db, teamId: string, trackId: string):
     },
     track: { id: track.id, kind: track.kind, marksRevision: track.revision },
     marks: snapshotMarks,
+    markCounts,
     muzzle: muzzleMark && muzzleWorld && muzzleTrack
       ? { trackId: muzzleTrack.id, uPx: muzzleMark.uPx, vPx: muzzleMark.vPx, xM: muzzleWorld.x, yM: muzzleWorld.y }
       : null,

@@ -10,6 +10,7 @@ import type { Db } from '../db/client';
 import { clips } from '../db/schema/clips';
 import type { Storage } from '../storage/storage';
 import { runFrameExtraction, type ExtractFramesJob } from './extract-frames';
+import { cancelAutoMarkJob, enqueueAutoMark, ensureAutoMarkQueue, startAutoMarkWorker } from './auto-mark';
 
 export const EXTRACT_FRAMES = 'extract-frames';
 
@@ -19,6 +20,9 @@ export interface Jobs {
   enqueueExtraction(clipId: string): Promise<string>;
   /** Withdraws a queued or running job (a running handler notices through the clip status). */
   cancel(jobId: string): Promise<void>;
+  /** Sends the auto-mark job of a run (server/jobs/auto-mark.ts); returns the job id. */
+  enqueueAutoMark(runId: string): Promise<string>;
+  cancelAutoMark(jobId: string): Promise<void>;
 }
 
 export interface JobQueue {
@@ -64,6 +68,8 @@ export async function startJobQueue(config: Config, db: Db, options: { supervise
     }
   }
 
+  await ensureAutoMarkQueue(boss);
+
   const jobs: Jobs = {
     async enqueueExtraction(clipId) {
       const jobId = randomUUID();
@@ -78,9 +84,16 @@ export async function startJobQueue(config: Config, db: Db, options: { supervise
     async cancel(jobId) {
       await boss.cancel(EXTRACT_FRAMES, jobId).catch(() => {});
     },
+    async enqueueAutoMark(runId) {
+      const jobId = randomUUID();
+      await enqueueAutoMark(boss, db, runId, jobId);
+      return jobId;
+    },
+    cancelAutoMark: (jobId) => cancelAutoMarkJob(boss, jobId),
   };
 
   let reaper: NodeJS.Timeout | null = null;
+  let stopAutoMark: (() => void) | null = null;
   let working = false;
   return {
     boss,
@@ -95,9 +108,11 @@ export async function startJobQueue(config: Config, db: Db, options: { supervise
       reaper = setInterval(() => void failStaleExtractions(boss, db, config.jobStaleSeconds, deps.log), Math.max(1000, staleMs / 3));
       reaper.unref();
       await failStaleExtractions(boss, db, config.jobStaleSeconds, deps.log);
+      stopAutoMark = await startAutoMarkWorker(boss, deps);
     },
     async stop() {
       if (reaper) clearInterval(reaper);
+      stopAutoMark?.();
       await boss.stop({ graceful: true, wait: true, timeout: 10_000 }).catch(() => {});
     },
   };

@@ -32,6 +32,11 @@ export class StaleMarkWrite extends Error {
 
 type Tx = Parameters<Parameters<Db['transaction']>[0]>[0];
 
+/** A person's write makes the mark theirs, whatever placed it before (an automatic mark accepted or moved included). */
+function byPerson(snapped: boolean) {
+  return { source: snapped ? ('snap' as const) : ('hand' as const), confidence: null, lowConfidenceReason: null, autoMarkRunId: null };
+}
+
 export async function bumpTrackRevision(tx: Tx, trackId: string): Promise<number> {
   const [bumped] = await tx
     .update(tracks)
@@ -65,10 +70,10 @@ export async function upsertMark(
     const now = new Date();
     const rows = await tx
       .insert(marks)
-      .values({ trackId: args.trackId, frameNumber: args.frameNumber, ...args.values, revision, updatedBy: args.userId, updatedAt: now })
+      .values({ trackId: args.trackId, frameNumber: args.frameNumber, ...args.values, ...byPerson(args.values.snapped), revision, updatedBy: args.userId, updatedAt: now })
       .onConflictDoUpdate({
         target: [marks.trackId, marks.frameNumber],
-        set: { ...args.values, revision, updatedBy: args.userId, updatedAt: now },
+        set: { ...args.values, ...byPerson(args.values.snapped), revision, updatedBy: args.userId, updatedAt: now },
         setWhere: args.expectedRevision === null ? sql`false` : eq(marks.revision, args.expectedRevision),
       })
       .returning({ ...getTableColumns(marks), inserted: sql<boolean>`(xmax = 0)` });
@@ -111,7 +116,7 @@ export async function importMarks(
   if (args.replace) await tx.delete(marks).where(eq(marks.trackId, args.trackId));
   const now = new Date();
   for (let i = 0; i < args.rows.length; i += 1000) {
-    const chunk = args.rows.slice(i, i + 1000).map((r) => ({ trackId: args.trackId, ...r, revision, updatedBy: args.userId, updatedAt: now }));
+    const chunk = args.rows.slice(i, i + 1000).map((r) => ({ trackId: args.trackId, ...r, ...byPerson(r.snapped), revision, updatedBy: args.userId, updatedAt: now }));
     await tx
       .insert(marks)
       .values(chunk)
@@ -123,6 +128,10 @@ export async function importMarks(
           placedUPx: sql`excluded.placed_u_px`,
           placedVPx: sql`excluded.placed_v_px`,
           snapped: sql`excluded.snapped`,
+          source: sql`excluded.source`,
+          confidence: sql`excluded.confidence`,
+          lowConfidenceReason: sql`excluded.low_confidence_reason`,
+          autoMarkRunId: sql`excluded.auto_mark_run_id`,
           revision: sql`excluded.revision`,
           updatedBy: sql`excluded.updated_by`,
           updatedAt: sql`excluded.updated_at`,

@@ -19,6 +19,7 @@ import { markRoutes } from './marks';
 import { frameSnapRoutes } from './frame-snap';
 import { fitRoutes } from './fits';
 import { presetRoutes } from './presets';
+import { autoMarkRoutes } from './auto-mark';
 
 /** Each resource declares its routes in its own file; this is the order they are mounted. */
 export function registerAllRoutes(api: RouteTable, deps: AppDeps): void {
@@ -39,6 +40,7 @@ export function registerAllRoutes(api: RouteTable, deps: AppDeps): void {
   trackRoutes(api.section('tracks'), deps);
   markRoutes(api.section('marks'), deps);
   frameSnapRoutes(api.section('marks'), deps);
+  autoMarkRoutes(api.section('auto-mark'), deps);
   fitRoutes(api.section('fits'), deps);
   presetRoutes(api.section('presets'), deps);
 }

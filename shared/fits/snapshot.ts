@@ -4,6 +4,7 @@
 // conditions) so a reviewer can trace each one.
 import type { CalibrationGeometry } from '../geometry/calibration-transform';
 import type { FitShotInput } from '../physics/types';
+import type { FitMarkCounts } from '../schemas/auto-mark';
 
 export interface SnapshotMark {
   frameNumber: number;
@@ -52,6 +53,8 @@ export interface FitInputSnapshot {
   };
   track: { id: string; kind: string; marksRevision: number };
   marks: SnapshotMark[];
+  /** How the marks were made and which automatic ones were left out (absent on fits stored before automatic marking). */
+  markCounts?: FitMarkCounts;
   muzzle: { trackId: string; uPx: number; vPx: number; xM: number; yM: number } | null;
   air: {
     densityKgM3: number;
