@@ -1,6 +1,6 @@
 import { Outlet, useMatch, useParams } from 'react-router';
 import { lastTeamId } from '@/lib/last-team';
-import { useMe } from '@/lib/use-me';
+import { useMe } from '@/api/me/get-me';
 import { SideNav } from './side-nav';
 import { SiteFooter } from './site-footer';
 import { TeamSwitcher } from './team-switcher';

@@ -1,7 +1,7 @@
 import { Navigate } from 'react-router';
 import { NoTeamPage } from '@/features/teams/components/no-team-page';
 import { lastTeamId } from '@/lib/last-team';
-import { useMe } from '@/lib/use-me';
+import { useMe } from '@/api/me/get-me';
 
 /** "/" opens the team last worked in, else the first; people without a team can start one. */
 export function HomeRedirect() {

@@ -2,7 +2,7 @@ import { Navigate, Outlet, useLocation } from 'react-router';
 import { FormError } from '@/components/ui/form-error';
 import { LoadingBlock } from '@/components/ui/spinner';
 import { signInPath } from '@/lib/safe-next';
-import { useMe } from '@/lib/use-me';
+import { useMe } from '@/api/me/get-me';
 
 /** Signed-out visitors go to sign-in and come back to the page they asked for. */
 export function RequireSignIn() {

@@ -1,7 +1,7 @@
 import { NavLink } from 'react-router';
 import { ROLE_LABELS } from '@shared/roles';
 import { cx } from '@/components/ui/cx';
-import type { TeamMembership } from '@/lib/use-me';
+import type { TeamMembership } from '@/api/me/get-me';
 import { navEntriesFor, type NavEntry } from './nav';
 
 const linkClass = ({ isActive }: { isActive: boolean }) =>

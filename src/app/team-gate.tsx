@@ -3,7 +3,7 @@ import { Outlet, useParams } from 'react-router';
 import { ButtonLink } from '@/components/ui/button-link';
 import { EmptyState } from '@/components/ui/empty-state';
 import { rememberTeam } from '@/lib/last-team';
-import { useMembership } from '@/lib/use-me';
+import { useMembership } from '@/api/me/get-me';
 
 /** Pages under /t/:teamId render only for members; useCurrentTeam() relies on this. */
 export function TeamGate() {

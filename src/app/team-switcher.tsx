@@ -1,6 +1,6 @@
 import { useNavigate } from 'react-router';
 import { ROLE_LABELS } from '@shared/roles';
-import type { TeamMembership } from '@/lib/use-me';
+import type { TeamMembership } from '@/api/me/get-me';
 
 export interface TeamSwitcherProps {
   teams: readonly TeamMembership[];

@@ -1,7 +1,7 @@
 import { useEffect, useId, useRef, useState } from 'react';
 import { Link, useNavigate } from 'react-router';
 import type { Me } from '@shared/schemas/auth';
-import { useSignOut } from '@/features/auth/api/sign-out';
+import { useSignOut } from '@/api/auth/sign-out';
 
 function initials(name: string): string {
   const parts = name.trim().split(/\s+/);

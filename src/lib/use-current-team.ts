@@ -1,7 +1,7 @@
 import { useParams } from 'react-router';
 import type { Role } from '@shared/roles';
 import { roleAllows } from '@shared/roles';
-import { useMembership, type TeamMembership } from './use-me';
+import { useMembership, type TeamMembership } from '@/api/me/get-me';
 
 export interface CurrentTeam {
   teamId: string;

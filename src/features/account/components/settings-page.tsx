@@ -13,8 +13,8 @@ import { KeyValueList } from '@/components/ui/key-value-list';
 import { PageHeader } from '@/components/ui/page-header';
 import { LoadingBlock } from '@/components/ui/spinner';
 import { TextField } from '@/components/ui/text-field';
-import { useMe } from '@/lib/use-me';
-import { useUpdateMe } from '../api/update-me';
+import { useMe } from '@/api/me/get-me';
+import { useUpdateMe } from '@/api/me/update-me';
 
 const SettingsForm = z.object({ displayName: DisplayName, notifyByEmail: z.boolean() });
 

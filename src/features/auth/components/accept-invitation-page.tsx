@@ -12,10 +12,10 @@ import { FormError } from '@/components/ui/form-error';
 import { KeyValueList } from '@/components/ui/key-value-list';
 import { LoadingBlock } from '@/components/ui/spinner';
 import { TextField } from '@/components/ui/text-field';
-import { useAcceptInvitation } from '../api/accept-invitation';
+import { useAcceptInvitation } from '@/api/invitations/accept-invitation';
 import type { InvitationPreview, InvitationState } from '@shared/schemas/teams';
 import { formatDate } from '@/lib/format';
-import { useInvitationPreview } from '../api/invitation-preview';
+import { useInvitationPreview } from '@/api/invitations/get-invitation-preview';
 
 // A new account names itself, picks a password and types it twice; an
 // existing account only proves its password. Both send InvitationAcceptBody.

@@ -4,13 +4,13 @@ import { Navigate, useNavigate, useSearchParams } from 'react-router';
 import { SignInBody } from '@shared/schemas/auth';
 import { ApiError } from '@/lib/api-client';
 import { safeNext } from '@/lib/safe-next';
-import { useMe } from '@/lib/use-me';
+import { useMe } from '@/api/me/get-me';
 import { Button } from '@/components/ui/button';
 import { Card } from '@/components/ui/card';
 import { FormError } from '@/components/ui/form-error';
 import { LoadingBlock } from '@/components/ui/spinner';
 import { TextField } from '@/components/ui/text-field';
-import { useSignIn } from '../api/sign-in';
+import { useSignIn } from '@/api/auth/sign-in';
 
 export function SignInPage() {
   const [params] = useSearchParams();

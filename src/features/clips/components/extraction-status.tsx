@@ -5,10 +5,10 @@ import { Button } from '@/components/ui/button';
 import { ConfirmDialog } from '@/components/ui/dialog';
 import { FormError } from '@/components/ui/form-error';
 import { ProgressBar } from '@/components/ui/progress-bar';
-import { isWorking } from '../api/get-clip';
-import { useCancelClip } from '../api/cancel-clip';
-import { useDeleteClip } from '../api/delete-clip';
-import { useExtractClip } from '../api/extract-clip';
+import { isWorking } from '@/api/clips/get-clip';
+import { useCancelClip } from '@/api/clips/cancel-clip';
+import { useDeleteClip } from '@/api/clips/delete-clip';
+import { useExtractClip } from '@/api/clips/extract-clip';
 
 const STATUS: Record<ClipStatus, { words: string; tone: BadgeTone }> = {
   queued: { words: 'Waiting for the worker', tone: 'signal' },

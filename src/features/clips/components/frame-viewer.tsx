@@ -4,7 +4,7 @@ import { Badge } from '@/components/ui/badge';
 import { Button } from '@/components/ui/button';
 import { cx } from '@/components/ui/cx';
 import { formatQuantity } from '@/lib/format';
-import { frameImageUrl, thumbnailImageUrl } from '../api/frame-images';
+import { frameImageUrl, thumbnailImageUrl } from '@/api/clips/frame-images';
 
 const FLAG_WORDS = { 'dropped-before': 'frames missing before this one', duplicate: 'repeats the previous frame' } as const;
 

@@ -6,7 +6,7 @@ import { cx } from '@/components/ui/cx';
 import { EmptyState } from '@/components/ui/empty-state';
 import { FormError } from '@/components/ui/form-error';
 import { LoadingBlock } from '@/components/ui/spinner';
-import { useShotClips } from '../api/list-shot-clips';
+import { useShotClips } from '@/api/clips/list-shot-clips';
 import { ClipDetail } from './clip-detail';
 import { ClipStatusBadge } from './extraction-status';
 import { UploadClipForm } from './upload-clip-form';

@@ -7,8 +7,8 @@ import { Button } from '@/components/ui/button';
 import { FormError } from '@/components/ui/form-error';
 import { KeyValueList } from '@/components/ui/key-value-list';
 import { TextField } from '@/components/ui/text-field';
-import { formatQuantity } from '@/lib/format';
-import { useUpdateClip } from '../api/update-clip';
+import { formatNumber, formatQuantity } from '@/lib/format';
+import { useUpdateClip } from '@/api/clips/update-clip';
 
 /** Rates closer than this are the same rate written two ways (e.g. 29.97 vs 30000/1001). */
 const SAME_RATE_TOLERANCE = 0.005;

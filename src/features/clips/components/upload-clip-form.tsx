@@ -9,7 +9,7 @@ import { FormError } from '@/components/ui/form-error';
 import { ProgressBar } from '@/components/ui/progress-bar';
 import { TextField } from '@/components/ui/text-field';
 import { formatBytes } from '@/lib/format';
-import { useUploadClip } from '../api/upload-clip';
+import { useUploadClip } from '@/api/clips/upload-clip';
 
 // The form's own schema: the shared capture-rate rule plus the optional range,
 // where an empty box means "from the first / to the last frame".

@@ -6,8 +6,8 @@ import { PageHeader } from '@/components/ui/page-header';
 import { SafetyNote } from '@/components/ui/safety-note';
 import { LoadingBlock } from '@/components/ui/spinner';
 import { useCurrentTeam } from '@/lib/use-current-team';
-import { fitPath } from '../api/keys';
-import { useFit } from '../api/get-fit';
+import { fitExportUrl } from '@/api/fits/fit-exports';
+import { useFit } from '@/api/fits/get-fit';
 import { useFitPlots } from '../hooks/use-fit-plots';
 import { AuditTrail } from './audit-trail';
 import { EstimatesCard } from './estimates-card';
@@ -39,7 +39,6 @@ export function FitPage() {
       </div>
     );
   }
-  const exportBase = fitPath(teamId, fit.id);
   return (
     <div className="space-y-4">
       <PageHeader
@@ -84,13 +83,13 @@ export function FitPage() {
       </div>
       <Card title="Exports and checks">
         <div className="flex flex-wrap items-center gap-3 text-body">
-          <a className="font-medium text-signal-dark underline" href={`${exportBase}/export.csv`} download>
+          <a className="font-medium text-signal-dark underline" href={fitExportUrl(teamId, fit.id, 'export.csv')} download>
             Marks and residuals (CSV)
           </a>
-          <a className="font-medium text-signal-dark underline" href={`${exportBase}/export.json`} download>
+          <a className="font-medium text-signal-dark underline" href={fitExportUrl(teamId, fit.id, 'export.json')} download>
             Whole fit (JSON)
           </a>
-          <a className="font-medium text-signal-dark underline" href={`${exportBase}/report.pdf`} download>
+          <a className="font-medium text-signal-dark underline" href={fitExportUrl(teamId, fit.id, 'report.pdf')} download>
             Report (PDF)
           </a>
           <ReproduceButton teamId={teamId} fitId={fit.id} />

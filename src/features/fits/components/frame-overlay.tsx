@@ -2,7 +2,7 @@ import { useEffect, useMemo, useRef, useState, type ReactNode } from 'react';
 import { Circle, Image as KonvaImage, Layer, Line, Stage } from 'react-konva';
 import { buildCalibrationTransform, type CalibrationTransform } from '@shared/geometry/calibration-transform';
 import type { FitDetail } from '@shared/schemas/fits';
-import { frameImageUrl } from '../api/keys';
+import { frameImageUrl } from '@/api/clips/frame-images';
 import type { FitPlots } from '../hooks/use-fit-plots';
 import { CHART } from './chart-colours';
 

@@ -2,9 +2,10 @@ import type { ForecastBody, PresetSummary } from '@shared/schemas/presets';
 import type { FitDetail } from '@shared/schemas/fits';
 import { Card } from '@/components/ui/card';
 import { errorMessage } from '@/components/ui/form-error';
-import { useForecast } from '../api/forecast';
-import { usePresets } from '../api/list-presets';
-import { usePresetComparisons } from '../api/get-preset-comparisons';
+import { useForecast } from '@/api/presets/get-forecast';
+import { usePresets } from '@/api/presets/list-presets';
+import { usePresetComparisons } from '@/api/fits/list-preset-comparisons';
+import { formatNumber } from '@/lib/format';
 
 /** The day's conditions of this shot as a forecast request, or why there is none. */
 function forecastBody(fit: FitDetail, preset: PresetSummary): ForecastBody | string {

@@ -1,6 +1,6 @@
 import { Button } from '@/components/ui/button';
 import { errorMessage } from '@/components/ui/form-error';
-import { useReproduceFit } from '../api/reproduce-fit';
+import { useReproduceFit } from '@/api/fits/reproduce-fit';
 
 /** Recompute the fit on the server from its stored inputs and say whether every number came out the same. */
 export function ReproduceButton({ teamId, fitId }: { teamId: string; fitId: string }) {

@@ -4,7 +4,7 @@ import { Button } from '@/components/ui/button';
 import { Card } from '@/components/ui/card';
 import { FormError } from '@/components/ui/form-error';
 import { TextareaField } from '@/components/ui/textarea-field';
-import { useReviewFit } from '../api/review-fit';
+import { useReviewFit } from '@/api/fits/review-fit';
 import { FitStateBadge } from './fit-state-badge';
 
 /** Sign-off for engineers: approve or reject a fit awaiting review. Approved fits are frozen. */

@@ -8,8 +8,8 @@ import { FormError, errorMessage } from '@/components/ui/form-error';
 import { PageHeader } from '@/components/ui/page-header';
 import { LoadingBlock } from '@/components/ui/spinner';
 import { useCurrentTeam } from '@/lib/use-current-team';
-import { useShotFits } from '../api/get-shot-fits';
-import { useRunFit } from '../api/run-fit';
+import { useShotFits } from '@/api/fits/get-shot-fits';
+import { useRunFit } from '@/api/fits/run-fit';
 import { FitStateBadge } from './fit-state-badge';
 
 /** A shot's fits, newest first, and the place to run a new one from a marked track. */

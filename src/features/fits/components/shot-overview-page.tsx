@@ -6,7 +6,7 @@ import { FormError } from '@/components/ui/form-error';
 import { PageHeader } from '@/components/ui/page-header';
 import { LoadingBlock } from '@/components/ui/spinner';
 import { useCurrentTeam } from '@/lib/use-current-team';
-import { useShotOverview } from '../api/get-shot-overview';
+import { useShotOverview } from '@/api/fits/get-shot-overview';
 import { FitStateBadge } from './fit-state-badge';
 
 type Sort = NonNullable<ShotOverviewQuery['sort']>;

@@ -1,10 +1,10 @@
 import { FormError } from '@/components/ui/form-error';
 import { PageHeader } from '@/components/ui/page-header';
 import { LoadingBlock } from '@/components/ui/spinner';
-import { useMe } from '@/lib/use-me';
-import { MAIL_PAGE_SIZE } from '../api/keys';
-import { useMyMail } from '../api/my-mail';
-import { useMyMessage } from '../api/my-message';
+import { useMe } from '@/api/me/get-me';
+import { MAIL_PAGE_SIZE } from '@/api/mail/list-my-mail';
+import { useMyMail } from '@/api/mail/list-my-mail';
+import { useMyMessage } from '@/api/mail/get-my-message';
 import { useMailLocation } from '../hooks/use-mail-location';
 import { MailDeliveryNote } from './mail-delivery-note';
 import { MailTable } from './mail-table';

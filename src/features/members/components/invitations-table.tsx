@@ -7,7 +7,7 @@ import { DataTable, dataTableColumns } from '@/components/ui/data-table';
 import { ConfirmDialog } from '@/components/ui/dialog';
 import { FormError } from '@/components/ui/form-error';
 import { formatDate } from '@/lib/format';
-import { useRevokeInvitation } from '../api/revoke-invitation';
+import { useRevokeInvitation } from '@/api/invitations/revoke-invitation';
 
 const STATE_BADGES: Record<InvitationState, { tone: BadgeTone; label: string }> = {
   pending: { tone: 'signal', label: 'Waiting' },

@@ -9,7 +9,7 @@ import { InlineStatus } from '@/components/ui/inline-status';
 import { SelectField } from '@/components/ui/select-field';
 import { TextField } from '@/components/ui/text-field';
 import { formatDate } from '@/lib/format';
-import { useCreateInvitation } from '../api/create-invitation';
+import { useCreateInvitation } from '@/api/invitations/create-invitation';
 
 const ROLE_OPTIONS = ROLES.map((role) => ({ value: role, label: ROLE_LABELS[role] }));
 

@@ -8,8 +8,8 @@ import { ConfirmDialog } from '@/components/ui/dialog';
 import { FormError } from '@/components/ui/form-error';
 import { InlineStatus } from '@/components/ui/inline-status';
 import { formatDate } from '@/lib/format';
-import { useChangeMemberRole } from '../api/change-member-role';
-import { useRemoveMember } from '../api/remove-member';
+import { useChangeMemberRole } from '@/api/members/change-member-role';
+import { useRemoveMember } from '@/api/members/remove-member';
 import { RoleSelect } from './role-select';
 
 export interface MembersTableProps {

@@ -6,12 +6,14 @@ import { Dialog } from '@/components/ui/dialog';
 import { FormError } from '@/components/ui/form-error';
 import { SelectField } from '@/components/ui/select-field';
 import { TextField } from '@/components/ui/text-field';
-import { useCreatePreset } from '../api/create-preset';
-import { useKit } from '../api/list-kit';
+import { useCreatePreset } from '@/api/presets/create-preset';
+import { useLaunchers } from '@/api/launchers/list-launchers';
+import { useProjectiles } from '@/api/projectiles/list-projectiles';
 
 /** Version 1 of a preset: a handbook drag value with its source, and an efficiency stated as an assumption. */
 export function CreatePresetDialog({ teamId, onClose }: { teamId: string; onClose: () => void }) {
-  const kit = useKit(teamId, true);
+  const launchers = useLaunchers(teamId);
+  const projectiles = useProjectiles(teamId);
   const create = useCreatePreset(teamId);
   const navigate = useNavigate();
   const [form, setForm] = useState({ name: '', launcherId: '', projectileId: '', minKPa: '200', maxKPa: '600', handbookBody: 'smooth sphere, subcritical', efficiencyPct: '50', efficiencyStdPct: '15', efficiencyNote: '' });
@@ -46,8 +48,8 @@ export function CreatePresetDialog({ teamId, onClose }: { teamId: string; onClos
     >
       <div className="flex flex-col gap-3">
         <TextField label="Name" value={form.name} onChange={set('name')} required />
-        <SelectField label="Launcher" placeholder="Choose…" value={form.launcherId} onChange={set('launcherId')} options={(kit.data?.launchers ?? []).map((l) => ({ value: l.id, label: l.name }))} required />
-        <SelectField label="Projectile" placeholder="Choose…" value={form.projectileId} onChange={set('projectileId')} options={(kit.data?.projectiles ?? []).map((p) => ({ value: p.id, label: p.name }))} required />
+        <SelectField label="Launcher" placeholder="Choose…" value={form.launcherId} onChange={set('launcherId')} options={(launchers.data ?? []).map((l) => ({ value: l.id, label: l.name }))} required />
+        <SelectField label="Projectile" placeholder="Choose…" value={form.projectileId} onChange={set('projectileId')} options={(projectiles.data ?? []).map((p) => ({ value: p.id, label: p.name }))} required />
         <div className="grid grid-cols-2 gap-3">
           <TextField label="Lowest pressure" type="number" suffix="kPa" value={form.minKPa} onChange={set('minKPa')} />
           <TextField label="Highest pressure" type="number" suffix="kPa" value={form.maxKPa} onChange={set('maxKPa')} />
@@ -58,7 +60,7 @@ export function CreatePresetDialog({ teamId, onClose }: { teamId: string; onClos
           <TextField label="Its uncertainty (1σ)" type="number" suffix="%" value={form.efficiencyStdPct} onChange={set('efficiencyStdPct')} />
         </div>
         <TextField label="Why this efficiency" value={form.efficiencyNote} onChange={set('efficiencyNote')} hint="Stated with the assumption, e.g. “typical of a diaphragm valve, from memory”." />
-        <FormError error={create.error ?? kit.error} />
+        <FormError error={create.error ?? launchers.error ?? projectiles.error} />
       </div>
     </Dialog>
   );

@@ -11,9 +11,9 @@ import { LoadingBlock } from '@/components/ui/spinner';
 import { TextField } from '@/components/ui/text-field';
 import { formatNumber } from '@/lib/format';
 import { useCurrentTeam } from '@/lib/use-current-team';
-import { useForecast } from '../api/forecast';
-import { usePreset } from '../api/get-preset';
-import { usePresets } from '../api/list-presets';
+import { useForecast } from '@/api/presets/get-forecast';
+import { usePreset } from '@/api/presets/get-preset';
+import { usePresets } from '@/api/presets/list-presets';
 import { ForecastTrajectoryChart } from './forecast-trajectory-chart';
 import { KeepOutPanel } from './keep-out-panel';
 import { KeepOutSafety } from './keep-out-safety';
@@ -118,7 +118,7 @@ export function ForecastPage() {
     // eslint-disable-next-line react-hooks/exhaustive-deps -- only when the preset changes
   }, [preset.data?.id]);
 
-  const forecast = useForecast(teamId, applied);
+  const forecast = useForecast(teamId, applied, { keepPrevious: true });
   const set = (k: keyof FormState) => (e: { target: { value: string } }) => setForm((f) => ({ ...f, [k]: e.target.value }));
 
   return (

@@ -3,7 +3,7 @@ import { FormError } from '@/components/ui/form-error';
 import { KeyValueList } from '@/components/ui/key-value-list';
 import { LoadingBlock } from '@/components/ui/spinner';
 import { formatNumber } from '@/lib/format';
-import { useKeepOut } from '../api/keep-out';
+import { useKeepOut } from '@/api/presets/keep-out';
 import { KeepOutSafety } from './keep-out-safety';
 import { cdText, kPa, metres, pctText } from './preset-format';
 

@@ -2,12 +2,13 @@ import { CAN } from '@shared/roles';
 import { Button } from '@/components/ui/button';
 import { InlineStatus } from '@/components/ui/inline-status';
 import { useCurrentTeam } from '@/lib/use-current-team';
-import { useRecordComparisons } from '../api/record-comparisons';
+import { useRecordComparisons } from '@/api/presets/record-comparisons';
 import { CartesianGrid, Legend, ReferenceLine, ResponsiveContainer, Scatter, ScatterChart, Tooltip, XAxis, YAxis } from 'recharts';
 import { Card } from '@/components/ui/card';
 import { FormError } from '@/components/ui/form-error';
 import { LoadingBlock } from '@/components/ui/spinner';
-import { useMeasuredVsForecast } from '../api/measured-vs-forecast';
+import { useMeasuredVsForecast } from '@/api/presets/measured-vs-forecast';
+import { formatNumber } from '@/lib/format';
 
 const COLOURS = { speed: '#1f7a72', range: '#d9822b', grid: '#e2dccf', ink: '#3d4a5c' } as const;
 

@@ -9,7 +9,7 @@ import { PageHeader } from '@/components/ui/page-header';
 import { LoadingBlock } from '@/components/ui/spinner';
 import { formatDateTime } from '@/lib/format';
 import { useCurrentTeam } from '@/lib/use-current-team';
-import { usePresets } from '../api/list-presets';
+import { usePresets } from '@/api/presets/list-presets';
 import { CreatePresetDialog } from './create-preset-dialog';
 import { cdText, kPa, pctText } from './preset-format';
 

@@ -6,8 +6,8 @@ import { FormError } from '@/components/ui/form-error';
 import { InlineStatus } from '@/components/ui/inline-status';
 import { TextField } from '@/components/ui/text-field';
 import { formatNumber } from '@/lib/format';
-import { usePoolPreview } from '../api/pool-preview';
-import { usePublishVersion } from '../api/publish-version';
+import { usePoolPreview } from '@/api/presets/pool-preview';
+import { usePublishVersion } from '@/api/presets/publish-version';
 import { cdText, kPa, pctText } from './preset-format';
 
 function PooledLine({ label, p, format }: { label: string; p: PoolPreview['dragCoefficient'] | null; format: (v: number, s: number) => string }) {
@@ -27,7 +27,9 @@ export function PublishVersionPanel({ teamId, presetId, candidates }: { teamId: 
   const usable = candidates.filter((c) => c.usable);
   const [chosen, setChosen] = useState<Set<string>>(() => new Set());
   const [note, setNote] = useState('');
-  const preview = usePoolPreview(teamId, presetId);
+  // The fits the engineer asked to pool; null until they ask, and again after any change of choice.
+  const [requested, setRequested] = useState<string[] | null>(null);
+  const preview = usePoolPreview(teamId, presetId, requested);
   const publish = usePublishVersion(teamId, presetId);
   const [published, setPublished] = useState<number | null>(null);
 
@@ -38,7 +40,7 @@ export function PublishVersionPanel({ teamId, presetId, candidates }: { teamId: 
       else next.add(id);
       return next;
     });
-    preview.reset();
+    setRequested(null);
     setPublished(null);
   };
   const fitIds = [...chosen];
@@ -68,7 +70,7 @@ export function PublishVersionPanel({ teamId, presetId, candidates }: { teamId: 
           </fieldset>
           <TextField label="Note" value={note} onChange={(e) => setNote(e.target.value)} placeholder="Why this version" maxLength={2000} />
           <div className="flex flex-wrap gap-2">
-            <Button disabled={fitIds.length === 0} busy={preview.isPending} onClick={() => preview.mutate({ fitIds })}>
+            <Button disabled={fitIds.length === 0} busy={preview.isFetching} onClick={() => setRequested(fitIds)}>
               Pool {fitIds.length || ''} fit{fitIds.length === 1 ? '' : 's'}
             </Button>
             <Button
@@ -83,7 +85,7 @@ export function PublishVersionPanel({ teamId, presetId, candidates }: { teamId: 
                       setPublished(v.version);
                       setChosen(new Set());
                       setNote('');
-                      preview.reset();
+                      setRequested(null);
                     },
                   },
                 )

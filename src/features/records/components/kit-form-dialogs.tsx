@@ -9,10 +9,10 @@ import { FormError } from '@/components/ui/form-error';
 import { TextField } from '@/components/ui/text-field';
 import { TextareaField } from '@/components/ui/textarea-field';
 import { applyApiFieldErrors } from '@/lib/form-errors';
-import { useCreateLauncher } from '../api/create-launcher';
-import { useCreateProjectile } from '../api/create-projectile';
-import { useUpdateLauncher } from '../api/update-launcher';
-import { useUpdateProjectile } from '../api/update-projectile';
+import { useCreateLauncher } from '@/api/launchers/create-launcher';
+import { useCreateProjectile } from '@/api/projectiles/create-projectile';
+import { useUpdateLauncher } from '@/api/launchers/update-launcher';
+import { useUpdateProjectile } from '@/api/projectiles/update-projectile';
 import { QuantityField } from './quantity-field';
 
 // Launchers and projectiles are typed in workshop units (mm, L, g, kPa) and stored in SI.

@@ -9,10 +9,10 @@ import { FormError } from '@/components/ui/form-error';
 import { PageHeader } from '@/components/ui/page-header';
 import { formatNumber } from '@/lib/format';
 import { useCurrentTeam } from '@/lib/use-current-team';
-import { useDeleteLauncher } from '../api/delete-launcher';
-import { useDeleteProjectile } from '../api/delete-projectile';
-import { useLaunchers } from '../api/list-launchers';
-import { useProjectiles } from '../api/list-projectiles';
+import { useDeleteLauncher } from '@/api/launchers/delete-launcher';
+import { useDeleteProjectile } from '@/api/projectiles/delete-projectile';
+import { useLaunchers } from '@/api/launchers/list-launchers';
+import { useProjectiles } from '@/api/projectiles/list-projectiles';
 import { LaunchSafetyNote } from './launch-safety-note';
 import { LauncherFormDialog, ProjectileFormDialog } from './kit-form-dialogs';
 

@@ -9,8 +9,8 @@ import { FormError } from '@/components/ui/form-error';
 import { TextField } from '@/components/ui/text-field';
 import { TextareaField } from '@/components/ui/textarea-field';
 import { applyApiFieldErrors } from '@/lib/form-errors';
-import { useCreateSeries } from '../api/create-series';
-import { useUpdateSeries } from '../api/update-series';
+import { useCreateSeries } from '@/api/series/create-series';
+import { useUpdateSeries } from '@/api/series/update-series';
 
 type SeriesInput = z.input<typeof SeriesCreateBody>;
 const FIELDS = ['name', 'testDate', 'site', 'notes'] as const;

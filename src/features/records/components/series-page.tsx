@@ -10,8 +10,8 @@ import { FormError } from '@/components/ui/form-error';
 import { PageHeader } from '@/components/ui/page-header';
 import { formatDate } from '@/lib/format';
 import { useCurrentTeam } from '@/lib/use-current-team';
-import { useDeleteSeries } from '../api/delete-series';
-import { useSeriesList } from '../api/list-series';
+import { useDeleteSeries } from '@/api/series/delete-series';
+import { useSeriesList } from '@/api/series/list-series';
 import { SeriesFormDialog } from './series-form-dialog';
 
 const col = dataTableColumns<Series>();

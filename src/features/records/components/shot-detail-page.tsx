@@ -11,8 +11,8 @@ import { PageHeader } from '@/components/ui/page-header';
 import { LoadingBlock } from '@/components/ui/spinner';
 import { formatDateTime, formatQuantity } from '@/lib/format';
 import { useCurrentTeam } from '@/lib/use-current-team';
-import { useDeleteShot } from '../api/delete-shot';
-import { useShot } from '../api/get-shot';
+import { useDeleteShot } from '@/api/shots/delete-shot';
+import { useShot } from '@/api/shots/get-shot';
 
 export interface ShotDetailPageProps {
   /**

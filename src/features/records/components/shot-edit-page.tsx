@@ -4,8 +4,8 @@ import { FormError } from '@/components/ui/form-error';
 import { PageHeader } from '@/components/ui/page-header';
 import { LoadingBlock } from '@/components/ui/spinner';
 import { useCurrentTeam } from '@/lib/use-current-team';
-import { useShot } from '../api/get-shot';
-import { useUpdateShot } from '../api/update-shot';
+import { useShot } from '@/api/shots/get-shot';
+import { useUpdateShot } from '@/api/shots/update-shot';
 import { ShotForm } from './shot-form';
 
 export function ShotEditPage() {

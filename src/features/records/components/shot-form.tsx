@@ -10,9 +10,9 @@ import { TextField } from '@/components/ui/text-field';
 import { TextareaField } from '@/components/ui/textarea-field';
 import { applyApiFieldErrors } from '@/lib/form-errors';
 import { formatQuantity } from '@/lib/format';
-import { useLaunchers } from '../api/list-launchers';
-import { useProjectiles } from '../api/list-projectiles';
-import { useSeriesList } from '../api/list-series';
+import { useLaunchers } from '@/api/launchers/list-launchers';
+import { useProjectiles } from '@/api/projectiles/list-projectiles';
+import { useSeriesList } from '@/api/series/list-series';
 import { QuantityField } from './quantity-field';
 
 type ShotFormInput = z.input<typeof ShotCreateBody>;

@@ -2,7 +2,7 @@ import { useNavigate, useSearchParams } from 'react-router';
 import { Card } from '@/components/ui/card';
 import { PageHeader } from '@/components/ui/page-header';
 import { useCurrentTeam } from '@/lib/use-current-team';
-import { useCreateShot } from '../api/create-shot';
+import { useCreateShot } from '@/api/shots/create-shot';
 import { LaunchSafetyNote } from './launch-safety-note';
 import { ShotForm } from './shot-form';
 

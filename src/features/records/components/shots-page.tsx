@@ -7,10 +7,10 @@ import { PageHeader } from '@/components/ui/page-header';
 import { SelectField } from '@/components/ui/select-field';
 import { TextField } from '@/components/ui/text-field';
 import { useCurrentTeam } from '@/lib/use-current-team';
-import { useLaunchers } from '../api/list-launchers';
-import { useProjectiles } from '../api/list-projectiles';
-import { useSeriesList } from '../api/list-series';
-import { useShots } from '../api/list-shots';
+import { useLaunchers } from '@/api/launchers/list-launchers';
+import { useProjectiles } from '@/api/projectiles/list-projectiles';
+import { useSeriesList } from '@/api/series/list-series';
+import { useShots } from '@/api/shots/list-shots';
 import { useShotListParams } from '../hooks/use-shot-list-params';
 import { ShotsTable } from './shots-table';
 

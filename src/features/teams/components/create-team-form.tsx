@@ -5,7 +5,7 @@ import { TeamCreateBody } from '@shared/schemas/teams';
 import { Button } from '@/components/ui/button';
 import { FormError } from '@/components/ui/form-error';
 import { TextField } from '@/components/ui/text-field';
-import { useCreateTeam } from '../api/create-team';
+import { useCreateTeam } from '@/api/teams/create-team';
 
 export function CreateTeamForm() {
   const navigate = useNavigate();

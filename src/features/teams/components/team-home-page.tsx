@@ -7,7 +7,7 @@ import { FormError } from '@/components/ui/form-error';
 import { KeyValueList } from '@/components/ui/key-value-list';
 import { PageHeader } from '@/components/ui/page-header';
 import { useCurrentTeam } from '@/lib/use-current-team';
-import { useTeam } from '../api/team';
+import { useTeam } from '@/api/teams/get-team';
 
 /** A shortcut on the team home; the router supplies the list (src/app/team-home-slots.ts). */
 export interface TeamHomeLink {

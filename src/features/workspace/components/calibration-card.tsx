@@ -8,7 +8,7 @@ import type { Calibration } from '@shared/schemas/marking';
 import { draftToCreateBody, sameDraft, calibrationToDraft, type TransformResult } from '../editor/calibration-geometry';
 import type { Editor } from '../editor/editor-store';
 import { useEditor } from '../hooks/use-editor';
-import { useCreateCalibration } from '../api/create-calibration';
+import { useCreateCalibration } from '@/api/calibrations/create-calibration';
 
 interface CalibrationCardProps {
   editor: Editor;

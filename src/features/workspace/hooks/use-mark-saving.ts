@@ -5,9 +5,9 @@
 import { useCallback, useEffect, useRef, useState } from 'react';
 import type { Mark } from '@shared/schemas/marking';
 import { ApiError } from '@/lib/api-client';
-import { useDeleteMark } from '../api/delete-mark';
-import { fetchMarks } from '../api/get-marks';
-import { usePutMark } from '../api/put-mark';
+import { useDeleteMark } from '@/api/marks/delete-mark';
+import { fetchMarks } from '@/api/marks/list-marks';
+import { usePutMark } from '@/api/marks/put-mark';
 import type { Editor, MarkWrite } from '../editor/editor-store';
 import { markKey, type EditorMark, type MarkKey } from '../editor/types';
 

@@ -4,12 +4,12 @@
 import { useEffect, useRef } from 'react';
 import { CAN } from '@shared/roles';
 import { useCurrentTeam } from '@/lib/use-current-team';
-import { useClip } from '../api/get-clip';
-import { useClipFrames } from '../api/get-clip-frames';
-import { useCurrentCalibration } from '../api/get-current-calibration';
-import { useMarksOfTracks } from '../api/get-marks';
-import { useTracks } from '../api/get-tracks';
-import { useCreateTrack } from '../api/create-track';
+import { useClip } from '@/api/clips/get-clip';
+import { useClipFrames } from '@/api/clips/list-clip-frames';
+import { useCurrentCalibration } from '@/api/calibrations/get-current-calibration';
+import { useMarksOfTracks } from '@/api/marks/list-marks';
+import { useTracks } from '@/api/tracks/list-tracks';
+import { useCreateTrack } from '@/api/tracks/create-track';
 import { calibrationToDraft } from '../editor/calibration-geometry';
 import type { Editor } from '../editor/editor-store';
 import type { EditorTrack } from '../editor/types';

@@ -2,7 +2,7 @@ import { useEffect, useState } from 'react';
 import { snapOnImage } from '../editor/canvas-snap';
 import { createEditor, type Editor } from '../editor/editor-store';
 import { DEFAULT_FRAME_CACHE, FrameCache, imageLoader } from '../editor/frame-cache';
-import { frameImageUrl } from '../api/keys';
+import { frameImageUrl } from '@/api/clips/frame-images';
 
 /** One editor and one frame cache per open clip; the snap reads the decoded frame the person is looking at. */
 export function useWorkspaceEditor(teamId: string, clipId: string): { editor: Editor; frameCache: FrameCache<HTMLImageElement> } {

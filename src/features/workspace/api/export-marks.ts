@@ -1,6 +1,0 @@
-import type { MarksCsvKind } from '@shared/schemas/marking';
-import { trackBase } from './keys';
-
-/** The export is a plain download (text/csv attachment), so a link is all the client needs. */
-export const exportMarksUrl = (teamId: string, trackId: string, kind: MarksCsvKind) =>
-  `${trackBase(teamId, trackId)}/marks/export?kind=${kind}`;
