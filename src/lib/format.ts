@@ -2,6 +2,11 @@
 // about a shot goes through here so units, digits and intervals look the same
 // on every page. A space between value and unit as the SI Brochure (9th ed.)
 // asks; U+2212 minus and U+2013 en dash for ranges (typographic common practice).
+// A fit's estimates are written with the digits their interval earns; that rule
+// is shared with the PDF report and the exports (shared/fits/format.ts), so the
+// functions for estimates below hand over to it.
+import * as fitFormat from '@shared/fits/format';
+import type { Estimate } from '@shared/physics/types';
 
 const MINUS = '\u2212';
 const EN_DASH = '\u2013';
@@ -12,10 +17,12 @@ export interface NumberFormat {
   digits?: number;
   /** Fixed number of decimals, e.g. 1 for angles in degrees. */
   decimals?: number;
+  /** Drop trailing zeros after rounding ("30", "29.97"), for values that read best unpadded. */
+  trim?: boolean;
 }
 
 /** Rounds to significant digits or fixed decimals; never prints exponent notation for everyday magnitudes. */
-export function formatNumber(value: number | null | undefined, { digits = 4, decimals }: NumberFormat = {}): string {
+export function formatNumber(value: number | null | undefined, { digits = 4, decimals, trim = false }: NumberFormat = {}): string {
   if (value === null || value === undefined || Number.isNaN(value)) return '—';
   if (!Number.isFinite(value)) return value > 0 ? '∞' : `${MINUS}∞`;
   let text: string;
@@ -34,6 +41,7 @@ export function formatNumber(value: number | null | undefined, { digits = 4, dec
   }
   // "-0.00" after rounding reads as a sign error; show plain zero.
   if (/^-0(\.0+)?$/.test(text)) text = text.slice(1);
+  if (trim && text.includes('.') && !text.includes('e')) text = text.replace(/\.?0+$/, '');
   return text.replace('-', MINUS);
 }
 
@@ -112,4 +120,18 @@ export function formatBytes(bytes: number): string {
     i++;
   }
   return formatQuantity(value, units[i], i === 0 ? { decimals: 0 } : { digits: 3 });
+}
+
+/** A fitted value with as many decimals as its 95 % interval earns (same digits as the PDF report). */
+export const formatEstimate = (e: Estimate): string => fitFormat.formatValue(e);
+
+/** "23.31 to 23.62": the estimate's 95 % interval, to the same decimals as formatEstimate. */
+export const formatEstimateInterval = (e: Estimate): string => fitFormat.formatInterval(e);
+
+/** "1.2e+5": dimensionless numbers spanning decades, such as a Reynolds number. */
+export const formatScientific = (value: number, digits = 2): string => fitFormat.formatScientific(value, digits);
+
+/** Two significant digits are all an uncertainty deserves (GUM JCGM 100:2008 §7.2.6); trailing zeros dropped. */
+export function formatUncertainty(u: number): string {
+  return u === 0 ? '0' : String(Number(u.toPrecision(2))).replace('-', MINUS);
 }

@@ -15,7 +15,7 @@ const SAME_RATE_TOLERANCE = 0.005;
 
 /** Frame rates read best without padding zeros: "30 fps", "29.97 fps", "240 fps". */
 function fps(value: number): string {
-  return `${Number(value.toFixed(3))}\u00a0fps`;
+  return formatQuantity(value, 'fps', { decimals: 3, trim: true });
 }
 
 export function rateDiffers(clip: Pick<ClipView, 'containerFps' | 'captureFps'>): boolean {
@@ -40,7 +40,7 @@ export function TimeBasePanel({ teamId, clip, frames, canEdit }: { teamId: strin
       {differs && (
         <p role="note" className="rounded-md border-2 border-signal bg-signal-light/50 px-3 py-2 text-body text-ink">
           The file plays at {fps(clip.containerFps)}, but you stated it was captured at {fps(clip.captureFps)}
-          {slowdown > 1 ? ` (${Number(slowdown.toFixed(2))}× slow motion)` : ''}. Frame times use the capture rate; check it
+          {slowdown > 1 ? ` (${formatNumber(slowdown, { decimals: 2, trim: true })}× slow motion)` : ''}. Frame times use the capture rate; check it
           against the camera’s setting.
         </p>
       )}

@@ -1,4 +1,4 @@
-import { formatInterval, formatValue } from '@shared/fits/format';
+import { formatEstimate, formatEstimateInterval, formatNumber } from '@/lib/format';
 import type { Estimate, FitShotResult } from '@shared/physics/types';
 import type { FitInputSnapshot } from '@shared/fits/snapshot';
 import { Card } from '@/components/ui/card';
@@ -50,10 +50,10 @@ export function EstimatesCard({ result, snapshot }: { result: FitShotResult; sna
             <tr key={r.label} className="border-b border-line/60 last:border-0" data-quantity={r.label}>
               <th scope="row" className="py-1.5 pr-3 text-left font-medium text-ink">{r.label}</th>
               <td className="py-1.5 pr-3 text-right tabular-nums text-lead font-semibold text-fit-dark">
-                {r.estimate ? withUnit(formatValue(r.estimate), r.unit) : '—'}
+                {r.estimate ? withUnit(formatEstimate(r.estimate), r.unit) : '—'}
               </td>
               <td className="py-1.5 pr-3 text-right tabular-nums text-ink-soft">
-                {r.estimate ? (Number.isFinite(r.estimate.ci95[1]) ? withUnit(formatInterval(r.estimate), r.unit) : withUnit(`above ${r.estimate.ci95[0].toFixed(2)}`, r.unit)) : 'not defined (Cd not positive)'}
+                {r.estimate ? (Number.isFinite(r.estimate.ci95[1]) ? withUnit(formatEstimateInterval(r.estimate), r.unit) : withUnit(`above ${r.estimate.ci95[0].toFixed(2)}`, r.unit)) : 'not defined (Cd not positive)'}
               </td>
               <td className="py-1.5 text-micro text-ink-faint">{r.from}</td>
             </tr>
@@ -65,7 +65,7 @@ export function EstimatesCard({ result, snapshot }: { result: FitShotResult; sna
         {result.dragVerdict}.
       </p>
       <p className="text-micro text-ink-faint">
-        RMS residual {(result.rmsResidualM * 1000).toFixed(2)} mm · drag-free fit {formatValue(result.dragFree.launchSpeedMps)} m/s at {formatValue(result.dragFree.launchAngleDeg)}° · gravity fitted freely {formatValue(result.dragFree.freeGravityMps2)} m/s²
+        RMS residual {formatNumber(result.rmsResidualM * 1000, { decimals: 2 })} mm · drag-free fit {formatEstimate(result.dragFree.launchSpeedMps)} m/s at {formatEstimate(result.dragFree.launchAngleDeg)}° · gravity fitted freely {formatEstimate(result.dragFree.freeGravityMps2)} m/s²
       </p>
     </Card>
   );

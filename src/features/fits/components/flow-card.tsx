@@ -1,4 +1,4 @@
-import { formatScientific } from '@shared/fits/format';
+import { formatScientific, formatNumber } from '@/lib/format';
 import type { FitShotResult } from '@shared/physics/types';
 import { Card } from '@/components/ui/card';
 import { KeyValueList } from '@/components/ui/key-value-list';
@@ -11,8 +11,8 @@ export function FlowCard({ result }: { result: FitShotResult }) {
       <KeyValueList
         items={[
           { label: 'Reynolds number', value: `${formatScientific(d.reynoldsMin)} to ${formatScientific(d.reynoldsMax)}`, numeric: true },
-          { label: 'Peak Mach number', value: d.machMax.toFixed(3), numeric: true },
-          { label: 'Drag length 1/k', value: d.dragLengthM === null ? '—' : `${d.dragLengthM.toFixed(1)} m`, numeric: true },
+          { label: 'Peak Mach number', value: formatNumber(d.machMax, { decimals: 3 }), numeric: true },
+          { label: 'Drag length 1/k', value: d.dragLengthM === null ? '—' : `${formatNumber(d.dragLengthM, { decimals: 1 })} m`, numeric: true },
           { label: 'Marks flagged as outliers', value: String(result.outlierCount), numeric: true },
         ]}
       />

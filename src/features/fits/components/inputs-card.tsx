@@ -1,8 +1,9 @@
 import type { FitDetail } from '@shared/schemas/fits';
 import { Card } from '@/components/ui/card';
 import { KeyValueList } from '@/components/ui/key-value-list';
+import { formatNumber } from '@/lib/format';
 
-const orDash = (v: number | null, digits: number, unit: string) => (v === null ? '—' : `${v.toFixed(digits)} ${unit}`);
+const orDash = (v: number | null, digits: number, unit: string) => (v === null ? '—' : `${formatNumber(v, { decimals: digits })} ${unit}`);
 
 /** What the fit was run on, from its snapshot: a reviewer can trace every number. */
 export function InputsCard({ fit }: { fit: FitDetail }) {
@@ -12,13 +13,13 @@ export function InputsCard({ fit }: { fit: FitDetail }) {
     <Card title="Inputs" subtitle={`Stored with the fit · input hash ${fit.inputHash.slice(0, 12)}…`}>
       <KeyValueList
         items={[
-          { label: 'Projectile', value: `${s.projectile.name}: ${(s.projectile.massKg * 1000).toFixed(1)} g, ${(s.projectile.diameterM * 1000).toFixed(1)} mm` },
-          { label: 'Air density', value: `${s.air.densityKgM3.toFixed(4)} kg/m³`, numeric: true },
+          { label: 'Projectile', value: `${s.projectile.name}: ${formatNumber(s.projectile.massKg * 1000, { decimals: 1 })} g, ${formatNumber(s.projectile.diameterM * 1000, { decimals: 1 })} mm` },
+          { label: 'Air density', value: `${formatNumber(s.air.densityKgM3, { decimals: 4 })} kg/m³`, numeric: true },
           { label: 'Air density from', value: <span className="text-micro">{s.air.source}</span> },
           { label: 'Conditions', value: `${orDash(s.shot.airTempC, 1, '°C')}, ${orDash(s.shot.stationPressurePa === null ? null : s.shot.stationPressurePa / 1000, 2, 'kPa')}, ${orDash(s.shot.relativeHumidityPct, 0, '%RH')}` },
-          { label: 'Calibration', value: `version ${s.calibration.version} · ${s.calibration.pixelsPerMetre.toFixed(2)} px/m · scale ±${((s.calibration.scaleRelUncertainty ?? 0) * 100).toFixed(2)} %` },
+          { label: 'Calibration', value: `version ${s.calibration.version} · ${formatNumber(s.calibration.pixelsPerMetre, { decimals: 2 })} px/m · scale ±${((s.calibration.scaleRelUncertainty ?? 0) * 100).toFixed(2)} %` },
           { label: 'Marks', value: `${m.length} marks, ${m[0]?.tS.toFixed(4)} s to ${m[m.length - 1]?.tS.toFixed(4)} s (track revision ${s.track.marksRevision})` },
-          { label: 'Muzzle', value: s.muzzle ? `x ${s.muzzle.xM.toFixed(3)} m, y ${s.muzzle.yM.toFixed(3)} m` : 'not marked' },
+          { label: 'Muzzle', value: s.muzzle ? `x ${formatNumber(s.muzzle.xM, { decimals: 3 })} m, y ${formatNumber(s.muzzle.yM, { decimals: 3 })} m` : 'not marked' },
           { label: 'Frame rate', value: s.clip.frameRateHz ? `${s.clip.frameRateHz} fps` : '—', numeric: true },
         ]}
       />

@@ -44,12 +44,12 @@ function PresetRow({ teamId, fit, preset }: { teamId: string; fit: FitDetail; pr
       ) : (
         <>
           <td className="py-1.5 pr-3 text-right tabular-nums">
-            {f.muzzleSpeedMps.toFixed(2)} m/s
-            <span className="block text-micro text-ink-faint">measured {measured.toFixed(2)} ({(100 * (measured / f.muzzleSpeedMps - 1)).toFixed(1)} %)</span>
+            {formatNumber(f.muzzleSpeedMps, { decimals: 2 })} m/s
+            <span className="block text-micro text-ink-faint">measured {formatNumber(measured, { decimals: 2 })} ({(100 * (measured / f.muzzleSpeedMps - 1)).toFixed(1)} %)</span>
           </td>
           <td className="py-1.5 text-right tabular-nums">
-            {f.version.dragCoefficient.toFixed(3)} ± {f.version.dragCoefficientStd.toFixed(3)}
-            <span className="block text-micro text-ink-faint">measured {cd.toFixed(3)}</span>
+            {formatNumber(f.version.dragCoefficient, { decimals: 3 })} ± {formatNumber(f.version.dragCoefficientStd, { decimals: 3 })}
+            <span className="block text-micro text-ink-faint">measured {formatNumber(cd, { decimals: 3 })}</span>
           </td>
         </>
       )}

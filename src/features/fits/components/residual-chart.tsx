@@ -1,6 +1,7 @@
 import { CartesianGrid, Legend, ReferenceLine, ResponsiveContainer, Scatter, ScatterChart, Tooltip, XAxis, YAxis } from 'recharts';
 import type { FitPlots } from '../hooks/use-fit-plots';
 import { CHART } from './chart-colours';
+import { formatNumber } from '@/lib/format';
 
 /** Residuals (mark − fit) in millimetres against time; outliers drawn in red. */
 export function ResidualChart({ plots }: { plots: FitPlots }) {
@@ -12,10 +13,10 @@ export function ResidualChart({ plots }: { plots: FitPlots }) {
       <ResponsiveContainer width="100%" height={220}>
         <ScatterChart margin={{ top: 8, right: 16, bottom: 24, left: 8 }}>
           <CartesianGrid stroke={CHART.grid} />
-          <XAxis type="number" dataKey="tS" domain={['auto', 'auto']} tickFormatter={(v: number) => v.toFixed(3)} label={{ value: 't (s)', position: 'insideBottom', offset: -12 }} />
-          <YAxis type="number" dataKey="mm" tickFormatter={(v: number) => v.toFixed(1)} label={{ value: 'residual (mm)', angle: -90, position: 'insideLeft' }} />
+          <XAxis type="number" dataKey="tS" domain={['auto', 'auto']} tickFormatter={(v: number) => formatNumber(v, { decimals: 3 })} label={{ value: 't (s)', position: 'insideBottom', offset: -12 }} />
+          <YAxis type="number" dataKey="mm" tickFormatter={(v: number) => formatNumber(v, { decimals: 1 })} label={{ value: 'residual (mm)', angle: -90, position: 'insideLeft' }} />
           <ReferenceLine y={0} stroke={CHART.ink} />
-          <Tooltip formatter={(v) => (typeof v === 'number' ? v.toFixed(3) : String(v))} />
+          <Tooltip formatter={(v) => (typeof v === 'number' ? formatNumber(v, { decimals: 3 }) : String(v))} />
           <Legend verticalAlign="top" height={28} />
           <Scatter name="x residual" data={x} fill={CHART.marks} isAnimationActive={false} />
           <Scatter name="y residual" data={y} fill={CHART.fit} shape="diamond" isAnimationActive={false} />

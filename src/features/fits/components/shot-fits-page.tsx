@@ -11,6 +11,7 @@ import { useCurrentTeam } from '@/lib/use-current-team';
 import { useShotFits } from '@/api/fits/get-shot-fits';
 import { useRunFit } from '@/api/fits/run-fit';
 import { FitStateBadge } from './fit-state-badge';
+import { formatNumber } from '@/lib/format';
 
 /** A shot's fits, newest first, and the place to run a new one from a marked track. */
 export function ShotFitsPage() {
@@ -98,9 +99,9 @@ function FitRow({ teamId, fit }: { teamId: string; fit: FitSummary }) {
       <td className="px-3 py-2">
         <FitStateBadge state={fit.state} inputsChanged={fit.inputsChanged} />
       </td>
-      <td className="px-3 py-2 text-right tabular-nums">{fit.launchSpeedMps.toFixed(2)} m/s</td>
-      <td className="px-3 py-2 text-right tabular-nums">{fit.dragCoefficient === null ? '—' : fit.dragCoefficient.toFixed(3)}</td>
-      <td className="px-3 py-2 text-right tabular-nums">{(fit.rmsResidualM * 1000).toFixed(2)} mm</td>
+      <td className="px-3 py-2 text-right tabular-nums">{formatNumber(fit.launchSpeedMps, { decimals: 2 })} m/s</td>
+      <td className="px-3 py-2 text-right tabular-nums">{fit.dragCoefficient === null ? '—' : formatNumber(fit.dragCoefficient, { decimals: 3 })}</td>
+      <td className="px-3 py-2 text-right tabular-nums">{formatNumber(fit.rmsResidualM * 1000, { decimals: 2 })} mm</td>
     </tr>
   );
 }

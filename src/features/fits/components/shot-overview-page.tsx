@@ -8,6 +8,7 @@ import { LoadingBlock } from '@/components/ui/spinner';
 import { useCurrentTeam } from '@/lib/use-current-team';
 import { useShotOverview } from '@/api/fits/get-shot-overview';
 import { FitStateBadge } from './fit-state-badge';
+import { formatNumber } from '@/lib/format';
 
 type Sort = NonNullable<ShotOverviewQuery['sort']>;
 const COLUMNS: { key: Sort | null; label: string; numeric?: boolean }[] = [
@@ -146,8 +147,8 @@ function OverviewRow({ teamId, row }: { teamId: string; row: ShotOverviewRow }) 
           </Link>
         ) : null}
       </td>
-      <td className="px-3 py-2 text-right tabular-nums">{row.launchSpeedMps === null ? '—' : row.launchSpeedMps.toFixed(2)}</td>
-      <td className="px-3 py-2 text-right tabular-nums">{row.dragCoefficient === null ? '—' : row.dragCoefficient.toFixed(3)}</td>
+      <td className="px-3 py-2 text-right tabular-nums">{row.launchSpeedMps === null ? '—' : formatNumber(row.launchSpeedMps, { decimals: 2 })}</td>
+      <td className="px-3 py-2 text-right tabular-nums">{row.dragCoefficient === null ? '—' : formatNumber(row.dragCoefficient, { decimals: 3 })}</td>
       <td className="px-3 py-2 tabular-nums text-ink-soft">{row.testDate}</td>
     </tr>
   );

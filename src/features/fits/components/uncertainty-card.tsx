@@ -1,6 +1,7 @@
 import type { FitShotResult, UncertaintySource } from '@shared/physics/types';
 import type { FitInputSnapshot } from '@shared/fits/snapshot';
 import { Card } from '@/components/ui/card';
+import { formatUncertainty } from '@/lib/format';
 
 const SOURCE_COLOURS: Record<UncertaintySource, string> = {
   'marking scatter': '#d9822b',
@@ -10,8 +11,6 @@ const SOURCE_COLOURS: Record<UncertaintySource, string> = {
   'air density': '#8fb7b2',
 };
 
-/** Two significant digits are all an uncertainty deserves (GUM §7.2.6). */
-const twoDigits = (u: number) => (u === 0 ? '0' : Number(u.toPrecision(2)).toString());
 
 function Bar({ parts, label }: { parts: { source: UncertaintySource; u: number }[]; label: string }) {
   const total = parts.reduce((s, p) => s + p.u * p.u, 0);
@@ -63,10 +62,10 @@ export function UncertaintyCard({ result, snapshot }: { result: FitShotResult; s
                 {x.source}
               </th>
               <td className="py-1 pr-3 text-right tabular-nums">
-                {twoDigits(x.launchSpeedMps)} <span className="text-micro text-ink-faint">({speedTotal > 0 ? ((100 * x.launchSpeedMps ** 2) / speedTotal).toFixed(0) : 0} %)</span>
+                {formatUncertainty(x.launchSpeedMps)} <span className="text-micro text-ink-faint">({speedTotal > 0 ? ((100 * x.launchSpeedMps ** 2) / speedTotal).toFixed(0) : 0} %)</span>
               </td>
               <td className="py-1 pr-3 text-right tabular-nums">
-                {twoDigits(x.dragCoefficient)} <span className="text-micro text-ink-faint">({cdTotal > 0 ? ((100 * x.dragCoefficient ** 2) / cdTotal).toFixed(0) : 0} %)</span>
+                {formatUncertainty(x.dragCoefficient)} <span className="text-micro text-ink-faint">({cdTotal > 0 ? ((100 * x.dragCoefficient ** 2) / cdTotal).toFixed(0) : 0} %)</span>
               </td>
               <td className="py-1 text-micro text-ink-faint">{notes[x.source]}</td>
             </tr>

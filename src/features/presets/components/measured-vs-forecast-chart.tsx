@@ -20,9 +20,9 @@ function Parity({ title, unit, points, colour }: { title: string; unit: string; 
       <ResponsiveContainer width="100%" height={260}>
         <ScatterChart margin={{ top: 8, right: 16, bottom: 24, left: 8 }}>
           <CartesianGrid stroke={COLOURS.grid} />
-          <XAxis type="number" dataKey="forecast" domain={[0, max]} tickFormatter={(v: number) => v.toFixed(0)} label={{ value: `forecast (${unit})`, position: 'insideBottom', offset: -12 }} />
-          <YAxis type="number" dataKey="measured" domain={[0, max]} tickFormatter={(v: number) => v.toFixed(0)} label={{ value: `measured (${unit})`, angle: -90, position: 'insideLeft' }} />
-          <Tooltip formatter={(v) => (typeof v === 'number' ? v.toFixed(2) : String(v))} />
+          <XAxis type="number" dataKey="forecast" domain={[0, max]} tickFormatter={(v: number) => formatNumber(v, { decimals: 0 })} label={{ value: `forecast (${unit})`, position: 'insideBottom', offset: -12 }} />
+          <YAxis type="number" dataKey="measured" domain={[0, max]} tickFormatter={(v: number) => formatNumber(v, { decimals: 0 })} label={{ value: `measured (${unit})`, angle: -90, position: 'insideLeft' }} />
+          <Tooltip formatter={(v) => (typeof v === 'number' ? formatNumber(v, { decimals: 2 }) : String(v))} />
           <Legend verticalAlign="top" height={24} />
           <ReferenceLine segment={[{ x: 0, y: 0 }, { x: max, y: max }]} stroke={COLOURS.ink} strokeDasharray="4 4" />
           <Scatter name={title} data={points} fill={colour} isAnimationActive={false} />
@@ -73,10 +73,10 @@ export function MeasuredVsForecastChart({ teamId, presetId, version }: { teamId:
                 <tr key={r.fitId} className="border-t border-line tabular-nums">
                   <td>{r.shotLabel}</td>
                   <td>
-                    {r.measuredSpeedMps.toFixed(2)} ({r.measuredFrom}) / {r.forecastSpeedMps?.toFixed(2) ?? '—'}
+                    {formatNumber(r.measuredSpeedMps, { decimals: 2 })} ({r.measuredFrom}) / {formatNumber(r.forecastSpeedMps, { decimals: 2 })}
                   </td>
                   <td>
-                    {r.tapeRangeM?.toFixed(1) ?? '—'} / {r.forecastRangeM?.toFixed(1) ?? '—'}
+                    {formatNumber(r.tapeRangeM, { decimals: 1 })} / {formatNumber(r.forecastRangeM, { decimals: 1 })}
                   </td>
                   <td className="text-ink-faint">{r.note ?? ''}</td>
                 </tr>
