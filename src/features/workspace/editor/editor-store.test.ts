@@ -182,4 +182,75 @@ describe('editor store', () => {
     editor.step(1);
     expect(calls).toBe(1);
   });
+  // Escape reaches the store as a cancel event (use-workspace-keys), never as a key.
+  describe('cancel (Escape)', () => {
+    it('drops a half-drawn scale reference: no dialog, no scale, nothing in history', () => {
+      const { editor } = loadedEditor();
+      editor.setTool('ruler');
+      editor.toolEvent({ type: 'pointer-down', point: { u: 10, v: 10 }, button: 0 });
+      editor.toolEvent({ type: 'cancel' });
+      expect(editor.getState().toolStates.ruler).toEqual({ phase: 'idle' });
+      expect(editor.getState().dialog).toBeNull();
+      editor.toolEvent({ type: 'pointer-down', point: { u: 210, v: 10 }, button: 0 });
+      expect(editor.getState().calibrationDraft.scale).toBeNull();
+      expect(editor.getState().history.undo).toHaveLength(0);
+    });
+
+    it('closes the length dialog the ruler opened and starts over', () => {
+      const { editor } = loadedEditor();
+      editor.setTool('ruler');
+      editor.toolEvent({ type: 'pointer-down', point: { u: 10, v: 10 }, button: 0 });
+      editor.toolEvent({ type: 'pointer-down', point: { u: 210, v: 10 }, button: 0 });
+      expect(editor.getState().dialog).toBe('scale-length');
+      editor.toolEvent({ type: 'cancel' });
+      expect(editor.getState().dialog).toBeNull();
+      expect(editor.getState().toolStates.ruler).toEqual({ phase: 'idle' });
+      expect(editor.getState().calibrationDraft.scale).toBeNull();
+    });
+
+    it('closes the angle dialog of the horizon tool without setting a level', () => {
+      const { editor } = loadedEditor();
+      editor.setTool('horizon');
+      editor.toolEvent({ type: 'key', key: 'a' });
+      expect(editor.getState().dialog).toBe('level-angle');
+      editor.toolEvent({ type: 'cancel' });
+      expect(editor.getState().dialog).toBeNull();
+      expect(editor.getState().calibrationDraft.level).toBeNull();
+    });
+
+    it('forgets the plane corners clicked so far', () => {
+      const { editor } = loadedEditor();
+      editor.setTool('plane-fix');
+      editor.toolEvent({ type: 'pointer-down', point: { u: 0, v: 0 }, button: 0 });
+      editor.toolEvent({ type: 'pointer-down', point: { u: 100, v: 0 }, button: 0 });
+      editor.toolEvent({ type: 'cancel' });
+      expect(editor.getState().toolStates['plane-fix']).toMatchObject({ phase: 'collecting', corners: [] });
+    });
+
+    it('ends a mark drag without moving the mark or writing', () => {
+      const { editor, writes } = loadedEditor();
+      editor.placeMark({ u: 50, v: 50 });
+      editor.goToFrame(0);
+      editor.toolEvent({ type: 'pointer-down', point: { u: 50, v: 50 }, button: 0 });
+      editor.toolEvent({ type: 'pointer-move', point: { u: 80, v: 80 } });
+      editor.toolEvent({ type: 'cancel' });
+      editor.toolEvent({ type: 'pointer-up', point: { u: 80, v: 80 } });
+      expect(editor.getState().marksByTrack.ball[0]).toMatchObject({ uPx: 50, vPx: 50 });
+      expect(writes).toHaveLength(1);
+    });
+  });
+
+  it('a reader (no marking, no calibrating) gets the hand tool and changes nothing', () => {
+    const { editor, writes } = loadedEditor({}, { canMark: false, canCalibrate: false });
+    expect(editor.getState().activeTool).toBe('hand');
+    editor.setTool('place');
+    editor.setTool('ruler');
+    expect(editor.getState().activeTool).toBe('hand');
+    editor.toolEvent({ type: 'pointer-down', point: { u: 1, v: 1 }, button: 0 });
+    editor.placeMark({ u: 1, v: 1 });
+    editor.setCalibration({ origin: { u: 1, v: 1 } });
+    expect(marksOfTrack(editor.getState(), 'ball')).toHaveLength(0);
+    expect(editor.getState().calibrationDraft.origin).toBeNull();
+    expect(writes).toHaveLength(0);
+  });
 });

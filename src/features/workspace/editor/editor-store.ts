@@ -49,7 +49,6 @@ export interface EditorState {
   /** Frames the tracker passed on purpose (projectile hidden), per track; local to this session. */
   skipped: Record<MarkKey, true>;
   calibrationDraft: CalibrationDraft;
-  selection: { trackId: string; frameNumber: number } | null;
   history: History;
   permissions: EditorPermissions;
   /** Refine clicks to the projectile's centroid (on by default). */
@@ -109,7 +108,6 @@ export function initialEditorState(): EditorState {
     marksByTrack: {},
     skipped: {},
     calibrationDraft: EMPTY_CALIBRATION,
-    selection: null,
     history: EMPTY_HISTORY,
     permissions: { canMark: false, canCalibrate: false },
     snapOn: true,
@@ -167,6 +165,12 @@ export function createEditor(options: EditorOptions = {}) {
     set(extra({ ...applied, history: pushCommand(state.history, command) }));
   };
 
+  /** Applies an undo or redo step; a mark step shows the frame it happened on. */
+  const replay = (step: EditorCommand, command: EditorCommand, history: History) => {
+    const applied = applyCommand(state, step);
+    set({ ...applied, frameNumber: command.kind === 'mark' ? command.frameNumber : applied.frameNumber, history });
+  };
+
   const indexOfFrame = (frameNumber: number) => {
     const frames = state.frames;
     let lo = 0;
@@ -184,9 +188,6 @@ export function createEditor(options: EditorOptions = {}) {
     const i = Math.max(0, Math.min(state.frames.length - 1, indexOfFrame(state.frameNumber) + by));
     return state.frames[i].frameNumber;
   };
-
-  const canUseTool = (tool: ToolId) =>
-    tool === 'hand' || (CALIBRATION_TOOLS.includes(tool) ? state.permissions.canCalibrate : state.permissions.canMark);
 
   const toolContext = (): ToolContext => ({
     frameNumber: state.frameNumber,
@@ -211,10 +212,10 @@ export function createEditor(options: EditorOptions = {}) {
           editor.step(effect.by);
           break;
         case 'open-dialog':
-          set({ ...state, dialog: effect.dialog });
+          editor.setDialog(effect.dialog);
           break;
         case 'close-dialog':
-          set({ ...state, dialog: null });
+          editor.setDialog(null);
           break;
         case 'set-scale':
           editor.setCalibration({ scale: effect.scale });
@@ -256,7 +257,7 @@ export function createEditor(options: EditorOptions = {}) {
         ? state.activeTrackId
         : (data.tracks.find((t) => t.kind === 'projectile') ?? data.tracks[0])?.id ?? null;
       const frameNumber = data.frameNumber ?? (data.frames.some((f) => f.frameNumber === state.frameNumber) ? state.frameNumber : data.frames[0]?.frameNumber ?? 0);
-      const activeTool = canUseToolWith(data.permissions, state.activeTool) ? state.activeTool : data.permissions.canMark ? 'place' : 'hand';
+      const activeTool = toolAllowed(data.permissions, state.activeTool) ? state.activeTool : data.permissions.canMark ? 'place' : 'hand';
       set({
         ...state,
         frames: data.frames,
@@ -279,11 +280,11 @@ export function createEditor(options: EditorOptions = {}) {
     },
 
     setActiveTrack(trackId: string) {
-      if (state.tracks.some((t) => t.id === trackId)) set({ ...state, activeTrackId: trackId, selection: null });
+      if (state.tracks.some((t) => t.id === trackId)) set({ ...state, activeTrackId: trackId });
     },
 
     setTool(tool: ToolId) {
-      if (!canUseTool(tool) || tool === state.activeTool) return;
+      if (!toolAllowed(state.permissions, tool) || tool === state.activeTool) return;
       set({ ...state, activeTool: tool, toolStates: initialToolStates(), dialog: null });
     },
 
@@ -298,7 +299,8 @@ export function createEditor(options: EditorOptions = {}) {
     /** Feed a pointer, key or dialog event to the active tool. */
     toolEvent(event: ToolEvent) {
       const id = state.activeTool;
-      if (id === 'hand' || !canUseTool(id)) return;
+      // load() and setTool() only ever make an allowed tool active.
+      if (id === 'hand') return;
       const tool = TOOLS[id] as Tool<unknown>;
       const result = tool.transition(state.toolStates[id], event, toolContext());
       if (result.state !== state.toolStates[id]) set({ ...state, toolStates: { ...state.toolStates, [id]: result.state } });
@@ -315,7 +317,7 @@ export function createEditor(options: EditorOptions = {}) {
       const before = markAt(state, trackId, frameNumber);
       const skipped = { ...state.skipped };
       delete skipped[markKey(trackId, frameNumber)];
-      commit({ kind: 'mark', trackId, frameNumber, before, after }, (s) => ({ ...s, skipped, selection: { trackId, frameNumber } }));
+      commit({ kind: 'mark', trackId, frameNumber, before, after }, (s) => ({ ...s, skipped }));
     },
 
     /** A dragged mark keeps the position the person chose: no snap, and it counts as placed. */
@@ -328,7 +330,7 @@ export function createEditor(options: EditorOptions = {}) {
     deleteMark(trackId: string, frameNumber: number) {
       const before = markAt(state, trackId, frameNumber);
       if (!before || !state.permissions.canMark) return;
-      commit({ kind: 'mark', trackId, frameNumber, before, after: null }, (s) => ({ ...s, selection: null }));
+      commit({ kind: 'mark', trackId, frameNumber, before, after: null });
     },
 
     /** The projectile cannot be seen on this frame: drop any mark here, note the skip, go on. */
@@ -374,18 +376,13 @@ export function createEditor(options: EditorOptions = {}) {
     undo() {
       const command = state.history.undo.at(-1);
       if (!command) return;
-      const back = invert(command);
-      const applied = applyCommand(state, back);
-      const frameNumber = command.kind === 'mark' ? command.frameNumber : applied.frameNumber;
-      set({ ...applied, frameNumber, history: { undo: state.history.undo.slice(0, -1), redo: [...state.history.redo, command] } });
+      replay(invert(command), command, { undo: state.history.undo.slice(0, -1), redo: [...state.history.redo, command] });
     },
 
     redo() {
       const command = state.history.redo.at(-1);
       if (!command) return;
-      const applied = applyCommand(state, command);
-      const frameNumber = command.kind === 'mark' ? command.frameNumber : applied.frameNumber;
-      set({ ...applied, frameNumber, history: { undo: [...state.history.undo, command], redo: state.history.redo.slice(0, -1) } });
+      replay(command, command, { undo: [...state.history.undo, command], redo: state.history.redo.slice(0, -1) });
     },
 
     /**
@@ -415,15 +412,12 @@ export function createEditor(options: EditorOptions = {}) {
   return editor;
 }
 
-function canUseToolWith(p: EditorPermissions, tool: ToolId) {
+/** Who may use which tool: calibration tools need canCalibrate, the place tool canMark; anyone may pan. */
+function toolAllowed(p: EditorPermissions, tool: ToolId) {
   return tool === 'hand' || (CALIBRATION_TOOLS.includes(tool) ? p.canCalibrate : p.canMark);
 }
 
 export function marksOfTrack(state: EditorState, trackId: string | null): EditorMark[] {
   if (!trackId) return [];
   return Object.values(state.marksByTrack[trackId] ?? {}).sort((a, b) => a.frameNumber - b.frameNumber);
-}
-
-export function frameTime(state: EditorState, frameNumber: number): number | null {
-  return state.frames.find((f) => f.frameNumber === frameNumber)?.tS ?? null;
 }

@@ -28,7 +28,6 @@ export const horizonTool: Tool<HorizonState> = {
           if (distancePx(state.a, event.point) < MIN_LINE_PX) return unchanged(state);
           return { state: { phase: 'idle' }, effects: [{ type: 'set-level', level: { kind: 'line', p1: state.a, p2: event.point } }] };
         }
-        if (event.type === 'key' && event.key === 'Escape') return { state: { phase: 'idle' }, effects: [] };
         return unchanged(state);
       case 'typing-angle': {
         if (event.type !== 'submit') return unchanged(state);

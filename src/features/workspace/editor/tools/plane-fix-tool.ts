@@ -17,7 +17,6 @@ export const planeFixTool: Tool<PlaneFixState> = {
     if (event.type === 'cancel') return { state: reset, effects: state.phase === 'awaiting-size' ? [{ type: 'close-dialog' }] : [] };
     if (state.phase === 'collecting') {
       if (event.type === 'pointer-move') return { state: { ...state, hover: event.point }, effects: [] };
-      if (event.type === 'key' && event.key === 'Escape') return { state: reset, effects: [] };
       if (event.type === 'key' && event.key === 'Backspace') return { state: { ...state, corners: state.corners.slice(0, -1) }, effects: [] };
       if (event.type !== 'pointer-down' || event.button !== 0) return unchanged(state);
       const tooClose = state.corners.some((c) => Math.hypot(c.u - event.point.u, c.v - event.point.v) < MIN_CORNER_GAP_PX);

@@ -25,7 +25,6 @@ export const rulerTool: Tool<RulerState> = {
           if (distancePx(state.a, event.point) < MIN_REFERENCE_PX) return unchanged(state);
           return { state: { phase: 'awaiting-length', a: state.a, b: event.point }, effects: [{ type: 'open-dialog', dialog: 'scale-length' }] };
         }
-        if (event.type === 'key' && event.key === 'Escape') return { state: { phase: 'idle' }, effects: [] };
         return unchanged(state);
       case 'awaiting-length': {
         if (event.type !== 'submit') return unchanged(state);
