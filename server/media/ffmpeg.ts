@@ -1,10 +1,11 @@
-// The only module that runs ffmpeg and ffprobe. fluent-ffmpeg's callbacks and
-// events become promises with progress callbacks, and every long run can be
-// cancelled through an AbortSignal (the child process is killed).
-import { spawn } from 'node:child_process';
+// The only module that runs ffmpeg and ffprobe. fluent-ffmpeg builds the
+// commands; long runs go through spawnInGroup (own process group, killed when
+// this process exits or dies) and become promises with progress callbacks, and
+// every long run can be cancelled through an AbortSignal (the group is killed).
 import { createInterface } from 'node:readline';
 import path from 'node:path';
 import ffmpeg from 'fluent-ffmpeg';
+import { killChildGroup, spawnInGroup } from './process-groups';
 
 export interface ProbeResult {
   formatName: string;
@@ -93,15 +94,15 @@ function ffprobePath(): string {
  */
 export function frameTimestamps(file: string, signal?: AbortSignal): Promise<number[]> {
   return new Promise((resolve, reject) => {
-    const child = spawn(ffprobePath(), ['-v', 'error', '-select_streams', 'v:0', '-show_entries', 'packet=pts_time,dts_time', '-of', 'csv=p=0', file], {
+    const child = spawnInGroup(ffprobePath(), ['-v', 'error', '-select_streams', 'v:0', '-show_entries', 'packet=pts_time,dts_time', '-of', 'csv=p=0', file], {
       stdio: ['ignore', 'pipe', 'pipe'],
     });
-    const onAbort = () => child.kill('SIGKILL');
+    const onAbort = () => killChildGroup(child);
     signal?.addEventListener('abort', onAbort, { once: true });
     const times: number[] = [];
     let stderr = '';
-    child.stderr.on('data', (d) => (stderr += d));
-    createInterface({ input: child.stdout }).on('line', (line) => {
+    child.stderr!.on('data', (d) => (stderr += d));
+    createInterface({ input: child.stdout! }).on('line', (line) => {
       const [pts, dts] = line.split(',');
       const t = Number(pts !== 'N/A' && pts !== '' ? pts : dts);
       if (Number.isFinite(t)) times.push(t);
@@ -188,34 +189,48 @@ export function frameFileName(frameNumber: number): string {
 
 const FRAME_COUNTER = /frame=\s*(\d+)/;
 
+function ffmpegPath(): string {
+  return process.env.FFMPEG_PATH || 'ffmpeg';
+}
+
 /**
- * Runs a fluent-ffmpeg command as a promise. Progress is read from ffmpeg's
- * own status lines (frame=N) rather than fluent-ffmpeg's 'progress' event,
- * which would start an extra ffprobe of the input to compute a percentage.
+ * Runs a fluent-ffmpeg command (its argument list) in a process group of its
+ * own, as a promise. Progress is read from ffmpeg's own status lines (frame=N)
+ * rather than fluent-ffmpeg's 'progress' event, which would start an extra
+ * ffprobe of the input to compute a percentage.
  */
 function runCommand(command: ffmpeg.FfmpegCommand, onFrames: ((n: number) => void) | undefined, signal?: AbortSignal): Promise<void> {
   return new Promise((resolve, reject) => {
     if (signal?.aborted) return reject(new CancelledError());
-    const onAbort = () => command.kill('SIGKILL');
+    const args = (command as unknown as { _getArguments: () => string[] })._getArguments();
+    const child = spawnInGroup(ffmpegPath(), args, { stdio: ['ignore', 'ignore', 'pipe'] });
+    const onAbort = () => killChildGroup(child);
     signal?.addEventListener('abort', onAbort, { once: true });
-    if (onFrames) {
-      command.on('stderr', (line: string) => {
+    // Keep the tail of stderr for the error message; status lines end in \r.
+    let tail = '';
+    let partial = '';
+    child.stderr!.setEncoding('utf8');
+    child.stderr!.on('data', (chunk: string) => {
+      tail = (tail + chunk).slice(-8192);
+      if (!onFrames) return;
+      const parts = (partial + chunk).split(/[\r\n]/);
+      partial = parts.pop() ?? '';
+      for (const line of parts) {
         const m = FRAME_COUNTER.exec(line);
         if (m) onFrames(Number(m[1]));
-      });
-    }
-    command
-      .on('error', (err: Error, _stdout: string | null, stderr: string | null) => {
-        signal?.removeEventListener('abort', onAbort);
-        if (signal?.aborted) return reject(new CancelledError());
-        const last = String(stderr ?? '').trim().split('\n').filter(Boolean).pop();
-        reject(new MediaError(last ? `ffmpeg failed: ${last}` : err.message, stderr ?? ''));
-      })
-      .on('end', () => {
-        signal?.removeEventListener('abort', onAbort);
-        resolve();
-      })
-      .run();
+      }
+    });
+    child.on('error', (err) => {
+      signal?.removeEventListener('abort', onAbort);
+      reject(new MediaError(`ffmpeg could not run: ${err.message}`));
+    });
+    child.on('close', (code, sig) => {
+      signal?.removeEventListener('abort', onAbort);
+      if (signal?.aborted) return reject(new CancelledError());
+      if (code === 0) return resolve();
+      const last = tail.trim().split(/[\r\n]+/).filter(Boolean).pop();
+      reject(new MediaError(last ? `ffmpeg failed: ${last}` : `ffmpeg exited with ${sig ?? code}`, tail));
+    });
   });
 }
 
@@ -275,8 +290,8 @@ export interface RawEncoder {
 
 /** Starts ffmpeg reading raw frames on stdin (the synthetic clip generator renders in Node). */
 export function encodeRawFrames(o: EncodeRawOptions): RawEncoder {
-  const child = spawn(
-    process.env.FFMPEG_PATH || 'ffmpeg',
+  const child = spawnInGroup(
+    ffmpegPath(),
     [
       '-hide_banner', '-nostdin', '-loglevel', 'error', '-y',
       '-f', 'rawvideo', '-pix_fmt', o.pixFmt, '-s', `${o.width}x${o.height}`, '-r', String(o.fps), '-i', 'pipe:0',
@@ -286,23 +301,24 @@ export function encodeRawFrames(o: EncodeRawOptions): RawEncoder {
     { stdio: ['pipe', 'ignore', 'pipe'] },
   );
   let stderr = '';
-  child.stderr.on('data', (d) => (stderr += d));
+  child.stderr!.on('data', (d) => (stderr += d));
   const done = new Promise<void>((resolve, reject) => {
     child.on('error', (err) => reject(new MediaError(`ffmpeg could not run: ${err.message}`)));
     child.on('close', (code) => (code === 0 ? resolve() : reject(new MediaError(`ffmpeg encode failed (${code}): ${stderr.trim()}`, stderr))));
   });
   done.catch(() => {});
-  o.signal?.addEventListener('abort', () => child.kill('SIGKILL'), { once: true });
-  child.stdin.on('error', () => {}); // a failed encode surfaces through `done`
+  o.signal?.addEventListener('abort', () => killChildGroup(child), { once: true });
+  const stdin = child.stdin!;
+  stdin.on('error', () => {}); // a failed encode surfaces through `done`
   return {
     write: (frame) =>
       new Promise((resolve, reject) => {
         if (child.exitCode !== null) return done.then(() => reject(new MediaError('ffmpeg exited early')), reject);
-        if (child.stdin.write(frame)) resolve();
-        else child.stdin.once('drain', () => resolve());
+        if (stdin.write(frame)) resolve();
+        else stdin.once('drain', () => resolve());
       }),
     finish: async () => {
-      child.stdin.end();
+      stdin.end();
       await done;
     },
   };
