@@ -24,6 +24,62 @@ export interface Config {
   jobStaleSeconds: number;
   /** The built client (vite build output) to serve, if present. */
   clientDist: string;
+  /** Where clips and frames live: local disk (storageDir) unless STORAGE_URL is s3://bucket/prefix. */
+  storage: StorageSettings;
+  /** A worker's own scratch folder (swept at start, removed on exit); null: a per-process folder in the OS temp dir. */
+  scratchDir: string | null;
+  /** Jobs one worker process runs at the same time. */
+  workerConcurrency: number;
+  /** On SIGTERM a worker lets its running jobs finish this long, then hands them back to the queue. */
+  workerStopGraceSeconds: number;
+}
+
+export type StorageSettings = { kind: 'local' } | ({ kind: 's3' } & S3Settings);
+
+export interface S3Settings {
+  bucket: string;
+  /** Key prefix inside the bucket ('' or ending in '/'). */
+  prefix: string;
+  /** Null: AWS itself. Set for S3-compatible stores (MinIO, Ceph, the test fake). */
+  endpoint: string | null;
+  forcePathStyle: boolean;
+  region: string;
+  /** Null: the SDK's default credential chain (instance role, ~/.aws). */
+  credentials: { accessKeyId: string; secretAccessKey: string } | null;
+  /**
+   * Send checksums only where S3 requires them. Many S3-compatible stores keep the
+   * SDK's aws-chunked framing as data; the default is on whenever S3_ENDPOINT is set.
+   */
+  checksumsWhenRequired: boolean;
+}
+
+/** `s3://bucket/some/prefix` → bucket and prefix; anything else is an error a person can act on. */
+export function parseStorageUrl(url: string): { bucket: string; prefix: string } {
+  const m = /^s3:\/\/([^/]+)(?:\/(.*))?$/.exec(url);
+  if (!m) throw new Error(`STORAGE_URL must look like s3://bucket/prefix (got ${url}).`);
+  const bucket = m[1];
+  if (!/^[a-z0-9][a-z0-9.-]{1,61}[a-z0-9]$/.test(bucket)) throw new Error(`STORAGE_URL: bucket names are 3–63 lower-case letters, digits, dots and hyphens (got ${bucket}).`);
+  const prefix = (m[2] ?? '').replace(/^\/+|\/+$/g, '');
+  return { bucket, prefix: prefix ? `${prefix}/` : '' };
+}
+
+function storageSettings(env: NodeJS.ProcessEnv): StorageSettings {
+  const url = env.STORAGE_URL?.trim();
+  if (!url || url.startsWith('file:')) return { kind: 'local' };
+  const { bucket, prefix } = parseStorageUrl(url);
+  const endpoint = env.S3_ENDPOINT?.trim() || null;
+  const keyId = env.AWS_ACCESS_KEY_ID?.trim();
+  const secret = env.AWS_SECRET_ACCESS_KEY?.trim();
+  return {
+    kind: 's3',
+    bucket,
+    prefix,
+    endpoint,
+    forcePathStyle: env.S3_FORCE_PATH_STYLE === undefined ? endpoint !== null : env.S3_FORCE_PATH_STYLE === 'true',
+    region: env.AWS_REGION?.trim() || 'us-east-1',
+    credentials: keyId && secret ? { accessKeyId: keyId, secretAccessKey: secret } : null,
+    checksumsWhenRequired: env.S3_CHECKSUMS ? env.S3_CHECKSUMS === 'when-required' : endpoint !== null,
+  };
 }
 
 function int(value: string | undefined, fallback: number): number {
@@ -56,5 +112,9 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
     jobSchema: env.JOB_SCHEMA || 'pgboss',
     jobStaleSeconds: int(env.JOB_STALE_SECONDS, 30),
     clientDist: path.resolve(env.CLIENT_DIST ?? 'dist'),
+    storage: storageSettings(env),
+    scratchDir: env.SCRATCH_DIR ? path.resolve(env.SCRATCH_DIR) : null,
+    workerConcurrency: Math.max(1, int(env.WORKER_CONCURRENCY, 1)),
+    workerStopGraceSeconds: Math.max(0, int(env.WORKER_STOP_GRACE_SECONDS, 20)),
   };
 }

@@ -45,6 +45,7 @@ export function toClipView(row: ClipRow, duplicateOf: ClipView['duplicateOf']): 
     status: row.status,
     progress: row.progress,
     error: row.error,
+    waitingFor: row.status === 'queued' ? (row.waitingFor ?? null) : null,
     extractedCount: row.extractedCount,
     thumbnailCount: row.thumbnailCount,
     duplicateOf,

@@ -1,54 +1,81 @@
-// Receiving a clip upload: multer streams the file part to a temp file (never
-// into memory) while hashing it; then the bytes are sniffed and ffprobe says
-// whether it is a video we can work with. Every rejection is a problem+json
-// reason, and the temp file is removed however the request ends.
-import { createHash, randomBytes } from 'node:crypto';
-import { createWriteStream } from 'node:fs';
-import { mkdir, rm } from 'node:fs/promises';
-import path from 'node:path';
+// Receiving a clip upload: multer hands the file part to a storage engine
+// that streams it straight into the clip store (a multipart upload on an
+// object store, a file on local disk) while hashing it and keeping its first
+// bytes for sniffing. No temp file: the only buffer is the store's own (a few
+// parts in memory). ffprobe then reads the stored object in place: the file on
+// local disk, a presigned URL with range requests on an object store. Every
+// rejection is a problem+json reason, and the object is deleted however the
+// request ends unless the clip row took it.
+import { createHash, randomUUID } from 'node:crypto';
 import { Transform } from 'node:stream';
-import { pipeline } from 'node:stream/promises';
 import type { Request, RequestHandler } from 'express';
-import { fileTypeFromFile } from 'file-type';
+import { fileTypeFromBuffer, fileTypeFromFile } from 'file-type';
 import multer, { MulterError, type StorageEngine } from 'multer';
 import { HttpProblem, badRequest } from '../http/problem';
 import { MediaError, frameTimestamps, probe, type ProbeResult } from '../media/ffmpeg';
+import { clipPrefix, isStorageUnavailable, type Storage } from '../storage/storage';
+
+/** Bytes kept from the start of an upload to tell its container by content. */
+const HEAD_BYTES = 64 * 1024;
 
 /** What the storage engine adds to `req.file`. */
 export interface ReceivedFile extends Express.Multer.File {
   sha256: string;
+  /** The clip id chosen for this upload; its object lives under the clip's prefix. */
+  clipId: string;
+  /** Storage key of the uploaded bytes. */
+  key: string;
+  /** The first bytes of the file (up to 64 KiB). */
+  head: Buffer;
+  /** Set once a clip row owns the object; otherwise the object goes when the response ends. */
+  kept?: boolean;
 }
 
-/** A multer storage engine writing to `dir` and computing SHA-256 on the way through. */
-export function hashingDiskStorage(dir: string): StorageEngine {
+export const storageUnavailable = () =>
+  new HttpProblem(503, 'Storage unavailable', 'The clip store cannot be reached right now, so nothing was kept. Try the upload again in a few minutes.');
+
+/** A multer storage engine streaming into `storage` and computing SHA-256 on the way through. */
+export function hashingStoreEngine(storage: Storage): StorageEngine {
   return {
     _handleFile(req, file, cb) {
-      const target = path.join(dir, `upload-${Date.now().toString(36)}-${randomBytes(6).toString('hex')}`);
+      const clipId = randomUUID();
+      const key = `${clipPrefix(String(req.params.teamId), clipId)}original`;
       const hash = createHash('sha256');
+      const headParts: Buffer[] = [];
+      let headSize = 0;
       let size = 0;
       const tap = new Transform({
         transform(chunk: Buffer, _enc, done) {
           hash.update(chunk);
           size += chunk.length;
+          if (headSize < HEAD_BYTES) {
+            headParts.push(chunk.subarray(0, HEAD_BYTES - headSize));
+            headSize += Math.min(chunk.length, HEAD_BYTES - headSize);
+          }
           done(null, chunk);
         },
+        flush(done) {
+          // Over the limit: multer reports 413; the store must not complete the object.
+          done((file.stream as { truncated?: boolean }).truncated ? new Error('the upload is over the size limit') : null);
+        },
       });
-      // A client that goes away mid-stream: the pipeline fails and the partial file goes.
-      const onAbort = () => tap.destroy(new Error('the upload was interrupted'));
+      // A client that goes away mid-stream: the upload fails and nothing is kept.
+      file.stream.once('error', (err) => tap.destroy(err));
       req.once('close', () => {
-        if (!req.complete) onAbort();
+        if (!req.complete) tap.destroy(new Error('the upload was interrupted'));
       });
-      mkdir(dir, { recursive: true })
-        .then(() => pipeline(file.stream, tap, createWriteStream(target)))
-        .then(() => cb(null, { path: target, size, sha256: hash.digest('hex') } as Partial<ReceivedFile>))
+      storage
+        .put(key, file.stream.pipe(tap))
+        .then(() => cb(null, { clipId, key, size, sha256: hash.digest('hex'), head: Buffer.concat(headParts) } as Partial<ReceivedFile>))
         .catch(async (err: Error) => {
-          await rm(target, { force: true });
+          await storage.delete(key).catch(() => {});
           cb(err);
         });
     },
     _removeFile(_req, file, cb) {
-      if (!file.path) return cb(null);
-      rm(file.path, { force: true }).then(() => cb(null), cb);
+      const key = (file as Partial<ReceivedFile>).key;
+      if (!key) return cb(null);
+      storage.delete(key).then(() => cb(null), cb);
     },
   };
 }
@@ -66,13 +93,13 @@ export function tooLarge(limitBytes: number): HttpProblem {
 }
 
 /**
- * Middleware receiving the multipart `file` part (and text fields) into a temp
- * file under `tempDir`. Removes the temp file when the response ends, so a
- * handler only has to move the file away to keep it.
+ * Middleware receiving the multipart `file` part (and text fields) into the
+ * clip store. Deletes the stored object when the response ends unless the
+ * handler marked the file `kept` (the clip row owns it).
  */
-export function receiveClipUpload(tempDir: string, limitBytes: number): RequestHandler {
+export function receiveClipUpload(storage: Storage, limitBytes: number): RequestHandler {
   const upload = multer({
-    storage: hashingDiskStorage(tempDir),
+    storage: hashingStoreEngine(storage),
     limits: { fileSize: limitBytes, files: 1, fields: 10, fieldSize: 1000, parts: 12 },
   }).single('file');
   return (req, res, next) => {
@@ -85,7 +112,7 @@ export function receiveClipUpload(tempDir: string, limitBytes: number): RequestH
     }
     res.on('close', () => {
       const file = req.file as ReceivedFile | undefined;
-      if (file?.path) void rm(file.path, { force: true });
+      if (file?.key && !file.kept) void storage.delete(file.key).catch(() => {});
     });
     upload(req, res, (err: unknown) => {
       if (!err) return next();
@@ -95,8 +122,9 @@ export function receiveClipUpload(tempDir: string, limitBytes: number): RequestH
         return next(badRequest(`The upload form is not as expected: ${err.message}.`));
       }
       const message = (err as Error)?.message ?? String(err);
-      if (/interrupted|Unexpected end of form|aborted/i.test(message)) return next(badRequest('The upload was interrupted before the file was complete. Try again.'));
+      if (/interrupted|Unexpected end of form|aborted|Request closed/i.test(message)) return next(badRequest('The upload was interrupted before the file was complete. Try again.'));
       if (/Malformed part header|Multipart: Boundary not found/i.test(message)) return next(badRequest('The upload is not valid multipart/form-data.'));
+      if (isStorageUnavailable(err)) return next(storageUnavailable());
       next(err);
     });
   };
@@ -123,9 +151,13 @@ export interface InspectedClip {
 const unsupported = (detail: string) => new HttpProblem(415, 'Not a supported video', detail);
 const unreadable = (detail: string) => new HttpProblem(422, 'Unreadable video', detail);
 
-export async function inspectClip(file: string, sizeBytes: number, originalName: string): Promise<InspectedClip> {
+/**
+ * @param file what ffprobe opens: a path or a presigned URL (Storage.mediaInput)
+ * @param head the file's first bytes, which say what it is (read from `file` when it is a path and head is not given)
+ */
+export async function inspectClip(file: string, sizeBytes: number, originalName: string, head?: Buffer): Promise<InspectedClip> {
   if (sizeBytes === 0) throw badRequest(`${originalName} is empty (0 bytes).`);
-  const type = await fileTypeFromFile(file);
+  const type = head ? await fileTypeFromBuffer(head) : await fileTypeFromFile(file);
   if (!type) throw unsupported(`${originalName} is not a video file: its contents match no known format. Upload an MP4, MOV, MKV, WebM or AVI clip.`);
   if (!VIDEO_CONTAINERS.has(type.ext)) {
     throw unsupported(`${originalName} is ${type.mime} (.${type.ext}), not a video. Upload an MP4, MOV, MKV, WebM or AVI clip.`);

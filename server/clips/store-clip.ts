@@ -10,8 +10,11 @@ import type { InspectedClip } from './intake';
 export interface NewClip {
   teamId: string;
   shotId: string;
-  /** A validated local file; it is moved into storage. */
-  file: string;
+  /**
+   * Where the bytes are: a validated local file to move into storage (the demo
+   * seed), or an upload already streamed into storage under its clip id.
+   */
+  file: string | { clipId: string; key: string };
   facts: InspectedClip;
   originalName: string;
   sha256: string;
@@ -23,7 +26,7 @@ export interface NewClip {
 }
 
 /**
- * Moves a validated clip into storage and records it (status 'queued'), with
+ * Records a validated clip (status 'queued'), moving a local file into storage first, with
  * its time base and a note of any earlier clip of the team with the same bytes.
  * The row and its audit entry are one transaction; the file goes if they fail.
  */
@@ -35,9 +38,9 @@ export async function storeClip(db: Db, storage: Storage, c: NewClip): Promise<s
     .where(and(eq(clips.teamId, c.teamId), eq(clips.sha256, c.sha256)))
     .orderBy(asc(clips.createdAt))
     .limit(1);
-  const clipId = randomUUID();
-  const key = `${clipPrefix(c.teamId, clipId)}original.${c.facts.container}`;
-  await storage.putFile(key, c.file);
+  const clipId = typeof c.file === 'string' ? randomUUID() : c.file.clipId;
+  const key = typeof c.file === 'string' ? `${clipPrefix(c.teamId, clipId)}original.${c.facts.container}` : c.file.key;
+  if (typeof c.file === 'string') await storage.putFile(key, c.file);
   try {
     await db.transaction(async (tx) => {
       await tx.insert(clips).values({

@@ -12,7 +12,7 @@ import type { Db } from '../db/client';
 import { clipFrames, clips } from '../db/schema/clips';
 import { CancelledError, MediaError, extractFrames, frameTimestamps, probe } from '../media/ffmpeg';
 import { analyseTimeBase } from '../media/time-base';
-import { clipPrefix, type Storage } from '../storage/storage';
+import { clipPrefix, isStorageUnavailable, type Storage } from '../storage/storage';
 
 export interface ExtractFramesJob {
   clipId: string;
@@ -23,6 +23,10 @@ export interface ExtractionDeps {
   storage: Storage;
   config: Config;
   log?: (line: string) => void;
+  /** The worker's own scratch folder (default: the storage's temp folder). */
+  scratchDir?: string;
+  /** Aborted when the worker is stopping: the run hands its job back to the queue. */
+  stopping?: AbortSignal;
 }
 
 export interface ExtractionRun {
@@ -38,6 +42,7 @@ export const THUMBNAIL_WIDTH_PX = 160;
 const PROGRESS_EVERY_MS = 250;
 
 class NotOwner extends Error {}
+class HandedBack extends Error {}
 
 /** Source frame numbers for the thumbnail strip: evenly spread over the range, ends included. */
 export function thumbnailFrames(inFrame: number, outFrame: number, count = THUMBNAIL_COUNT): number[] {
@@ -51,12 +56,14 @@ export async function runFrameExtraction(deps: ExtractionDeps, run: ExtractionRu
   const owned = and(eq(clips.id, run.clipId), eq(clips.jobId, run.jobId));
   const [clip] = await db
     .update(clips)
-    .set({ status: 'extracting', progress: 0, error: null, heartbeatAt: new Date(), updatedAt: new Date() })
+    .set({ status: 'extracting', progress: 0, error: null, waitingFor: null, heartbeatAt: new Date(), updatedAt: new Date() })
     .where(and(owned, inArray(clips.status, ['queued', 'extracting'])))
     .returning();
   if (!clip) return; // deleted, cancelled or superseded: nothing to do
 
   const abort = new AbortController();
+  const onStop = () => abort.abort();
+  deps.stopping?.addEventListener('abort', onStop, { once: true });
   const stillOwner = async () => {
     const [row] = await db.select({ status: clips.status }).from(clips).where(owned);
     if (!row || row.status !== 'extracting') abort.abort();
@@ -73,7 +80,7 @@ export async function runFrameExtraction(deps: ExtractionDeps, run: ExtractionRu
       .catch(() => {});
   }, beatMs);
 
-  const workRoot = path.join(storage.tempDir, 'extract');
+  const workRoot = path.join(deps.scratchDir ?? storage.tempDir, 'extract');
   const workDir = path.join(workRoot, `${clip.id}-${randomBytes(4).toString('hex')}`);
   const framesDir = path.join(workDir, 'frames');
   const thumbsDir = path.join(workDir, 'thumbs');
@@ -88,7 +95,8 @@ export async function runFrameExtraction(deps: ExtractionDeps, run: ExtractionRu
     await mkdir(framesDir, { recursive: true });
     await mkdir(thumbsDir, { recursive: true });
 
-    const input = await storage.localPath(clip.storageKey);
+    // A file ffmpeg can seek in: the stored file on local disk, a download into scratch from an object store.
+    const input = (await storage.localCopy(clip.storageKey, workDir)).path;
     // Timestamps were read at upload; older rows get them from ffprobe while ffmpeg extracts.
     const timing = (
       clip.framePtsS && clip.baseFps > 0
@@ -175,11 +183,34 @@ export async function runFrameExtraction(deps: ExtractionDeps, run: ExtractionRu
     });
     const keep = newPrefix;
     newPrefix = null; // committed: it is the clip's frame set now
-    await deleteOtherVersions(storage, clip.teamId, clip.id, keep);
+    // Committed already: a store hiccup here only delays the clean-up to the next extraction of this clip.
+    await deleteOtherVersions(storage, clip.teamId, clip.id, keep).catch((err) => deps.log?.(`[jobs] clip ${clip.id}: old frame sets not yet removed (${(err as Error).message})`));
     deps.log?.(`[jobs] clip ${clip.id}: ${rows.length} frames extracted`);
-  } catch (err) {
+  } catch (caught) {
     if (newPrefix) await storage.deletePrefix(newPrefix).catch(() => {});
+    // The worker is stopping: give the job back (pg-boss retries it on another worker).
+    const err = deps.stopping?.aborted ? new HandedBack('the worker stopped; the job was handed back') : caught;
     if (err instanceof CancelledError || err instanceof NotOwner) return;
+    if (err instanceof HandedBack) {
+      await db
+        .update(clips)
+        .set({ status: 'queued', progress: 0, heartbeatAt: null, updatedAt: new Date() })
+        .where(and(owned, eq(clips.status, 'extracting')));
+      throw err;
+    }
+    if (isStorageUnavailable(err)) {
+      // The store is down: not the file's fault. Wait (visibly) and let pg-boss retry with backoff.
+      const lastAttempt = (run.retryCount ?? 0) >= (run.retryLimit ?? 0);
+      if (lastAttempt) {
+        await markFailed(db, run, `Extraction stopped: the file store was unreachable on every attempt (${(err as Error).message}). Extract again once it is back.`);
+        return;
+      }
+      await db
+        .update(clips)
+        .set({ status: 'queued', progress: 0, waitingFor: 'storage', error: `Waiting for the file store (${(err as Error).message}); retrying.`, heartbeatAt: null, updatedAt: new Date() })
+        .where(and(owned, eq(clips.status, 'extracting')));
+      throw err;
+    }
     if (err instanceof MediaError) {
       // The file itself is the problem: retrying cannot help.
       await markFailed(db, run, `Could not extract frames: ${err.message}`);
@@ -197,6 +228,7 @@ export async function runFrameExtraction(deps: ExtractionDeps, run: ExtractionRu
     throw err;
   } finally {
     clearInterval(heartbeat);
+    deps.stopping?.removeEventListener('abort', onStop);
     await rm(workDir, { recursive: true, force: true }).catch(() => {});
   }
 }
@@ -204,7 +236,7 @@ export async function runFrameExtraction(deps: ExtractionDeps, run: ExtractionRu
 async function markFailed(db: Db, run: ExtractionRun, error: string) {
   await db
     .update(clips)
-    .set({ status: 'failed', error, heartbeatAt: null, updatedAt: new Date() })
+    .set({ status: 'failed', error, waitingFor: null, heartbeatAt: null, updatedAt: new Date() })
     .where(and(eq(clips.id, run.clipId), eq(clips.jobId, run.jobId), inArray(clips.status, ['queued', 'extracting'])));
 }
 

@@ -28,9 +28,13 @@ export interface Jobs {
 export interface JobQueue {
   boss: PgBoss;
   jobs: Jobs;
-  /** Starts handling jobs in this process. */
+  /** Starts handling jobs in this process (config.workerConcurrency extractions at a time). */
   startWorker(deps: WorkerDeps): Promise<void>;
-  stop(): Promise<void>;
+  /**
+   * Stops taking jobs, lets running extractions finish for up to `graceMs`,
+   * then makes the rest hand their jobs back to the queue (retried elsewhere).
+   */
+  stop(graceMs?: number): Promise<void>;
 }
 
 export interface WorkerDeps {
@@ -38,6 +42,8 @@ export interface WorkerDeps {
   storage: Storage;
   config: Config;
   log?: (line: string) => void;
+  /** The worker's own scratch folder; default: the storage's temp folder. */
+  scratchDir?: string;
 }
 
 export async function startJobQueue(config: Config, db: Db, options: { supervise?: boolean } = {}): Promise<JobQueue> {
@@ -75,7 +81,7 @@ export async function startJobQueue(config: Config, db: Db, options: { supervise
       const jobId = randomUUID();
       await db
         .update(clips)
-        .set({ jobId, status: 'queued', progress: 0, error: null, heartbeatAt: null, updatedAt: new Date() })
+        .set({ jobId, status: 'queued', progress: 0, error: null, waitingFor: null, heartbeatAt: null, updatedAt: new Date() })
         .where(eq(clips.id, clipId));
       const sent = await boss.send(EXTRACT_FRAMES, { clipId } satisfies ExtractFramesJob, { id: jobId });
       if (!sent) throw new Error('the job queue did not accept the extraction job');
@@ -95,24 +101,42 @@ export async function startJobQueue(config: Config, db: Db, options: { supervise
   let reaper: NodeJS.Timeout | null = null;
   let stopAutoMark: (() => void) | null = null;
   let working = false;
+  // Running extractions, and the signal that makes them hand their jobs back when the worker stops.
+  const active = new Set<Promise<void>>();
+  const stopping = new AbortController();
   return {
     boss,
     jobs,
     async startWorker(deps) {
       if (working) return;
       working = true;
-      await boss.work<ExtractFramesJob>(EXTRACT_FRAMES, { batchSize: 1, pollingIntervalSeconds: 1, includeMetadata: true }, async ([job]) => {
-        await runFrameExtraction(deps, { jobId: job.id, clipId: job.data.clipId, retryCount: job.retryCount, retryLimit: job.retryLimit });
-      });
+      // pg-boss 10 runs one job at a time per work() call: concurrency is that many subscriptions.
+      for (let i = 0; i < Math.max(1, config.workerConcurrency); i++) {
+        await boss.work<ExtractFramesJob>(EXTRACT_FRAMES, { batchSize: 1, pollingIntervalSeconds: 1, includeMetadata: true }, async ([job]) => {
+          const run = runFrameExtraction({ ...deps, stopping: stopping.signal }, { jobId: job.id, clipId: job.data.clipId, retryCount: job.retryCount, retryLimit: job.retryLimit });
+          active.add(run);
+          try {
+            await run;
+          } finally {
+            active.delete(run);
+          }
+        });
+      }
       const staleMs = config.jobStaleSeconds * 1000;
       reaper = setInterval(() => void failStaleExtractions(boss, db, config.jobStaleSeconds, deps.log), Math.max(1000, staleMs / 3));
       reaper.unref();
       await failStaleExtractions(boss, db, config.jobStaleSeconds, deps.log);
       stopAutoMark = await startAutoMarkWorker(boss, deps);
     },
-    async stop() {
+    async stop(graceMs = 10_000) {
       if (reaper) clearInterval(reaper);
       stopAutoMark?.();
+      if (working) {
+        await boss.offWork(EXTRACT_FRAMES).catch(() => {});
+        const handBack = setTimeout(() => stopping.abort(), graceMs);
+        await Promise.allSettled([...active]);
+        clearTimeout(handBack);
+      }
       await boss.stop({ graceful: true, wait: true, timeout: 10_000 }).catch(() => {});
     },
   };

@@ -16,8 +16,8 @@ import type { AppDeps } from '../app-deps';
 import { audit } from '../audit';
 import { signedIn, teamRole } from '../auth/access';
 import { loadClipView, loadClipViews } from '../clips/clip-view';
-import { inspectClip, receiveClipUpload, receivedFile } from '../clips/intake';
-import { storeClip } from '../clips/store-clip';
+import { acceptUpload } from '../clips/accept-upload';
+import { receiveClipUpload, receivedFile } from '../clips/intake';
 import { clipFrames, clips } from '../db/schema/clips';
 import { shots } from '../db/schema/records';
 import { currentTeam, currentUser, input } from '../http/input';
@@ -42,7 +42,7 @@ export function clipRoutes(api: RouteTable, deps: AppDeps) {
     signedIn,
     teamRole(CAN.editShots),
     requireShotOfTeam,
-    receiveClipUpload(storage.tempDir, config.uploadLimitBytes),
+    receiveClipUpload(storage, config.uploadLimitBytes),
     validate({ params: ShotClipParams, body: ClipUploadFields }),
     uploadClip,
   );
@@ -106,26 +106,7 @@ export function clipRoutes(api: RouteTable, deps: AppDeps) {
     const { params, body } = input(res, { params: ShotClipParams, body: ClipUploadFields });
     const file = receivedFile(req);
     if (!file) throw badRequest('Attach the clip as the multipart field `file`.');
-    const originalName = (file.originalname || 'clip').slice(0, 255);
-    const facts = await inspectClip(file.path, file.size, originalName);
-    const inFrame = body.inFrame ?? 0;
-    const outFrame = body.outFrame ?? facts.frameCount - 1;
-    if (outFrame > facts.frameCount - 1 || inFrame > outFrame) {
-      throw badRequest(`The clip has ${facts.frameCount} frames (0–${facts.frameCount - 1}); inFrame ${inFrame} / outFrame ${outFrame} is outside it.`);
-    }
-    const clipId = await storeClip(db, storage, {
-      teamId: params.teamId,
-      shotId: params.shotId,
-      file: file.path,
-      facts,
-      originalName,
-      sha256: file.sha256,
-      sizeBytes: file.size,
-      captureFps: body.captureFps,
-      inFrame,
-      outFrame,
-      createdBy: currentUser(res).id,
-    });
+    const clipId = await acceptUpload(db, storage, file, { ...params, ...body, createdBy: currentUser(res).id });
     await enqueue(clipId);
     res.status(201).json(await view(params.teamId, clipId));
   }

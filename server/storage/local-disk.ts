@@ -42,6 +42,7 @@ export function localDiskStorage(rootDir: string): Storage {
   }
 
   return {
+    kind: 'local',
     tempDir,
     async put(key, body: Readable) {
       const file = fileOf(key);
@@ -116,6 +117,12 @@ export function localDiskStorage(rootDir: string): Storage {
     },
     async localPath(key) {
       return fileOf(key);
+    },
+    async mediaInput(key) {
+      return fileOf(key);
+    },
+    async localCopy(key) {
+      return { path: fileOf(key), release: async () => {} };
     },
   };
 }

@@ -88,6 +88,8 @@ export const ClipView = z.object({
   /** 0..1 while extracting. */
   progress: z.number(),
   error: z.string().nullable(),
+  /** What a queued extraction is waiting for before it can retry: 'storage' while the object store is unreachable. */
+  waitingFor: z.enum(['storage']).nullable(),
   extractedCount: z.number().int(),
   thumbnailCount: z.number().int(),
   /** Another clip of the team with the same bytes, if any. */
