@@ -8,7 +8,7 @@ import { FormError } from '@/components/ui/form-error';
 import { LoadingBlock } from '@/components/ui/spinner';
 import { formatBytes, formatDateTime } from '@/lib/format';
 import { isWorking, useClip } from '@/api/clips/get-clip';
-import { clipKeys } from '@/api/query-keys';
+import { invalidateAfterExtraction } from '@/api/clips/clip-views';
 import { useClipFrames } from '@/api/clips/list-clip-frames';
 import { ExtractionStatus } from './extraction-status';
 import { FrameViewer } from './frame-viewer';
@@ -27,8 +27,7 @@ export function ClipDetail({ teamId, clipId, initial, canEdit, onDeleted }: { te
   useEffect(() => {
     if (!clip) return;
     if (lastStatus.current && lastStatus.current !== clip.status && !isWorking(clip.status)) {
-      void client.invalidateQueries({ queryKey: clipKeys.frames(teamId, clipId) });
-      void client.invalidateQueries({ queryKey: clipKeys.shotClips(teamId, clip.shotId) });
+      void invalidateAfterExtraction(client, teamId, clipId, clip.shotId);
     }
     lastStatus.current = clip.status;
   }, [clip, client, teamId, clipId]);
