@@ -202,7 +202,8 @@ export async function runAutoMark(deps: AutoMarkDeps, attempt: AutoMarkAttempt):
       return;
     }
     if (isAbort(err)) return; // cancelled: the cancel already wrote the state
-    if (err instanceof RunInputError) {
+    // The tracking core refuses input it cannot work with (too few frames, a seed off the frames) with a RangeError.
+    if (err instanceof RunInputError || err instanceof RangeError) {
       await endRun(db, run.id, 'failed', `Auto-marking could not run: ${err.message}.`, owner.attempt);
       return;
     }

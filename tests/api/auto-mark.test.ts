@@ -152,6 +152,7 @@ describe('auto-marking a track', () => {
     const body = await marksOf(firstTrackId);
     const auto = body.marks.filter((m) => m.source === 'auto');
     firstMarks = body.marks;
+    console.info(`[auto-mark] ${auto.length} automatic marks; confidence quartiles ${[0.25, 0.5, 0.75].map((q) => auto.map((m) => m.confidence!).sort((x, y) => x - y)[Math.floor(q * (auto.length - 1))].toFixed(2)).join(' / ')}; flagged ${run.framesFlagged}; launch frame ${run.launchFrame}; ended ${run.endReason}`);
     expect(run.framesMarked).toBe(auto.length);
     expect(run.framesFlagged).toBe(auto.filter((m) => m.confidence! < run.reviewThreshold).length);
     for (const m of auto) {
@@ -283,37 +284,42 @@ describe('stopping a run', () => {
 describe('the fit and automatic marks', () => {
   it('leaves out marks below the team’s threshold and says how many were automatic and by hand', async () => {
     const auto = firstMarks.filter((m) => m.source === 'auto');
-    // Three of the tracker's decisions made unsure (as a low-contrast stretch would), straight in the table.
-    const unsure = auto.slice(10, 13).map((m) => m.frameNumber);
+    // Three of the marker's confident decisions made unsure (as a low-contrast stretch would), straight in the table.
+    const unsure = auto.filter((m) => m.confidence! >= 0.6).slice(10, 13).map((m) => m.frameNumber);
+    expect(unsure).toHaveLength(3);
     for (const frame of unsure) {
       await t.deps.db
         .update(marks)
         .set({ confidence: 0.2, lowConfidenceReason: 'weak contrast' })
         .where(and(eq(marks.trackId, firstTrackId), eq(marks.frameNumber, frame)));
     }
-    const listed = (await marksOf(firstTrackId)).marks.filter((m) => unsure.includes(m.frameNumber));
-    expect(listed.map((m) => [m.confidence, m.lowConfidenceReason])).toEqual(unsure.map(() => [0.2, 'weak contrast']));
+    const now = (await marksOf(firstTrackId)).marks;
+    expect(now.filter((m) => unsure.includes(m.frameNumber)).map((m) => [m.confidence, m.lowConfidenceReason])).toEqual(unsure.map(() => [0.2, 'weak contrast']));
+    const below = now.filter((m) => m.source === 'auto' && m.confidence! < 0.6).map((m) => m.frameNumber);
 
     const run = await analyst.post(`/api/teams/${teamId}/tracks/${firstTrackId}/fits`);
     expect(run.status, JSON.stringify(run.body)).toBe(201);
     const fit = (await analyst.get(`/api/teams/${teamId}/fits/${run.body.id}`)).body as FitDetail;
     const counts = fit.snapshot.markCounts!;
-    expect(counts.leftOut).toBe(3);
-    expect(counts.leftOutFrames.map((f) => f.frameNumber)).toEqual(unsure);
-    expect(counts.automatic).toBe(auto.length - 3);
+    expect(counts.leftOut).toBe(below.length);
+    expect(counts.leftOutFrames.map((f) => f.frameNumber)).toEqual(below);
+    expect(counts.leftOutFrames.filter((f) => unsure.includes(f.frameNumber)).map((f) => f.reason)).toEqual(['weak contrast', 'weak contrast', 'weak contrast']);
+    expect(counts.automatic).toBe(auto.length - below.length);
     expect(counts.byHand).toBe(1);
     expect(counts.reviewThreshold).toBe(0.6);
     expect(fit.snapshot.marks.length).toBe(counts.automatic + counts.byHand);
-    expect(fit.snapshot.marks.some((m) => unsure.includes(m.frameNumber))).toBe(false);
+    expect(fit.snapshot.marks.some((m) => below.includes(m.frameNumber))).toBe(false);
 
-    // A team that trusts the marker more lowers its threshold; then nothing is left out.
+    // A team that trusts the marker more lowers its threshold; then only what is below the new one is left out.
     expectProblem(await tracker.put(`/api/teams/${teamId}/auto-mark-settings`).send({ reviewThreshold: 0.1 }), 403);
     expect((await analyst.put(`/api/teams/${teamId}/auto-mark-settings`).send({ reviewThreshold: 0.1 })).body).toEqual({ reviewThreshold: 0.1 });
     try {
       const again = await analyst.post(`/api/teams/${teamId}/tracks/${firstTrackId}/fits`);
       const refit = (await analyst.get(`/api/teams/${teamId}/fits/${again.body.id}`)).body as FitDetail;
-      expect(refit.snapshot.markCounts!.leftOut).toBe(0);
-      expect(refit.snapshot.marks.length).toBe(firstMarks.length);
+      const belowNew = now.filter((m) => m.source === 'auto' && m.confidence! < 0.1).length;
+      expect(refit.snapshot.markCounts!.reviewThreshold).toBe(0.1);
+      expect(refit.snapshot.markCounts!.leftOut).toBe(belowNew);
+      expect(refit.snapshot.marks.length).toBe(firstMarks.length - belowNew);
     } finally {
       await analyst.put(`/api/teams/${teamId}/auto-mark-settings`).send({ reviewThreshold: 0.6 }).expect(200);
     }
