@@ -8,6 +8,7 @@
 import { loadConfig } from './config';
 import { connect } from './db/client';
 import { applyMigrations, ensureDatabase } from './db/migrate';
+import { loadOpenCv } from './vision/opencv';
 import { startJobQueue } from './jobs/queue';
 import { createStorage, describeStorage } from './storage/create-storage';
 import { prepareScratch } from './storage/scratch';
@@ -30,6 +31,8 @@ process.stdout.write(
   `[arcbench] worker ${process.pid}: ${config.workerConcurrency} job(s) at a time, queue schema ${config.jobSchema}, storage ${describeStorage(config)}, scratch ${scratch.dir}\n`,
 );
 process.send?.({ ready: true, scratchDir: scratch.dir });
+// Auto-mark jobs need OpenCV: load it once per worker now, not on the first job (it takes a few seconds).
+void loadOpenCv().catch((err: Error) => process.stdout.write(`[arcbench] OpenCV did not load (auto-marking will fail): ${err.message}\n`));
 
 let stopping = false;
 async function shutdown(signal: string) {
