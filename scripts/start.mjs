@@ -12,6 +12,8 @@ import { bin } from './lib/tool.mjs';
 
 const root = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '..');
 const dataDir = path.join(root, '.data');
+// Production mode (as server/config.ts decides it): no demo team, no demo banner.
+const production = process.env.NODE_ENV === 'production' || /^(off|false|no|0)$/i.test(process.env.ARCBENCH_DEMO ?? '');
 
 async function main() {
   await ensureSystemPackages(['postgresql', 'ffmpeg']);
@@ -44,7 +46,7 @@ async function main() {
     HOST: process.env.HOST ?? '127.0.0.1',
   };
   try {
-    log('Applying migrations and seeding the demo team');
+    log(production ? 'Applying migrations (production mode: no demo team)' : 'Applying migrations and seeding the demo team');
     await run(bin(root, 'tsx'), ['server/cli/seed.ts'], { cwd: root, env });
     log('Building the client');
     await run(bin(root, 'vite'), ['build', '--logLevel', 'warn'], { cwd: root, env });
@@ -56,8 +58,9 @@ async function main() {
   server = spawn(bin(root, 'tsx'), ['server/index.ts'], { cwd: root, env, stdio: ['ignore', 'inherit', 'inherit', 'ipc'] });
   server.on('message', async (msg) => {
     if (!msg?.ready) return;
-    const { printSignIns } = await import('./lib/banner.mjs');
-    printSignIns(msg.url);
+    const { printSignIns, printProductionBanner } = await import('./lib/banner.mjs');
+    if (production) printProductionBanner(msg.url);
+    else printSignIns(msg.url);
   });
   server.on('exit', (code) => {
     if (!stopping) {

@@ -22,3 +22,18 @@ export function printSignIns(url) {
   ];
   process.stdout.write(`${lines.join('\n')}\n`);
 }
+
+/** Production mode: no demo accounts exist; say how to make the first admin. */
+export function printProductionBanner(url) {
+  const lines = [
+    '',
+    `  Arcbench is running at ${url} (production mode: no demo team)`,
+    '',
+    '  First time? Create the first admin in another terminal:  npm run admin:create',
+    '  See README, "Running it for real", for TRUST_PROXY, SMTP_URL and backups.',
+    '',
+    '  Press Ctrl-C to stop the server and the database.',
+    '',
+  ];
+  process.stdout.write(`${lines.join('\n')}\n`);
+}
