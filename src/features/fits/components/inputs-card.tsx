@@ -2,6 +2,7 @@ import type { FitDetail } from '@shared/schemas/fits';
 import { Card } from '@/components/ui/card';
 import { KeyValueList } from '@/components/ui/key-value-list';
 import { formatNumber } from '@/lib/format';
+import { markCountsLine } from './mark-counts';
 
 const orDash = (v: number | null, digits: number, unit: string) => (v === null ? '—' : `${formatNumber(v, { decimals: digits })} ${unit}`);
 
@@ -9,6 +10,7 @@ const orDash = (v: number | null, digits: number, unit: string) => (v === null ?
 export function InputsCard({ fit }: { fit: FitDetail }) {
   const s = fit.snapshot;
   const m = s.marks;
+  const how = markCountsLine(s.markCounts);
   return (
     <Card title="Inputs" subtitle={`Stored with the fit · input hash ${fit.inputHash.slice(0, 12)}…`}>
       <KeyValueList
@@ -19,6 +21,7 @@ export function InputsCard({ fit }: { fit: FitDetail }) {
           { label: 'Conditions', value: `${orDash(s.shot.airTempC, 1, '°C')}, ${orDash(s.shot.stationPressurePa === null ? null : s.shot.stationPressurePa / 1000, 2, 'kPa')}, ${orDash(s.shot.relativeHumidityPct, 0, '%RH')}` },
           { label: 'Calibration', value: `version ${s.calibration.version} · ${formatNumber(s.calibration.pixelsPerMetre, { decimals: 2 })} px/m · scale ±${((s.calibration.scaleRelUncertainty ?? 0) * 100).toFixed(2)} %` },
           { label: 'Marks', value: `${m.length} marks, ${m[0]?.tS.toFixed(4)} s to ${m[m.length - 1]?.tS.toFixed(4)} s (track revision ${s.track.marksRevision})` },
+          ...(how ? [{ label: 'How marked', value: how }] : []),
           { label: 'Muzzle', value: s.muzzle ? `x ${formatNumber(s.muzzle.xM, { decimals: 3 })} m, y ${formatNumber(s.muzzle.yM, { decimals: 3 })} m` : 'not marked' },
           { label: 'Frame rate', value: s.clip.frameRateHz ? `${s.clip.frameRateHz} fps` : '—', numeric: true },
         ]}
