@@ -8,6 +8,7 @@ import { log, runStatus } from './lib/run.mjs';
 import { ensureSystemPackages } from './lib/system-packages.mjs';
 import { ensureNodeModules } from './lib/node-modules.mjs';
 import { startThrowaway } from './lib/throwaway.mjs';
+import { startS3Fake } from './lib/s3-fake.mjs';
 import { bin } from './lib/tool.mjs';
 
 const root = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '..');
@@ -18,6 +19,12 @@ async function main() {
   await ensureNodeModules(root);
 
   const { tmp, env, cleanup } = await startThrowaway(root);
+  // The S3 fake (s3rver, its own process) for the api-s3 project: tests/support/api-s3-global-setup.ts.
+  const s3 = await startS3Fake(path.join(tmp, 's3'), ['arcbench-test']).catch(async (err) => {
+    await cleanup();
+    throw err;
+  });
+  env.S3_FAKE_ENDPOINT = s3.endpoint;
   const results = [];
   const step = async (name, cmd, args) => {
     log(`── ${name}`);
@@ -49,6 +56,7 @@ async function main() {
     process.exitCode = failedSteps.length === 0 && counts.failed === 0 ? 0 : 1;
     if (process.exitCode) log(`Failed: ${failedSteps.join(', ') || 'tests'}`);
   } finally {
+    await s3.stop();
     await cleanup();
   }
 }

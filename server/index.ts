@@ -7,7 +7,8 @@ import { createApp } from './app';
 import { createMailer } from './mail/mailer';
 import { startFakeSmtp } from './mail/fake-smtp';
 import { startBackground, type Background } from './background';
-import { localDiskStorage } from './storage/local-disk';
+import { createStorage, describeStorage } from './storage/create-storage';
+import { prepareScratch } from './storage/scratch';
 
 const config = loadConfig();
 await ensureDatabase(config.databaseUrl);
@@ -16,7 +17,10 @@ await applyMigrations(database.db);
 
 const fakeSmtp = config.smtpUrl ? null : await startFakeSmtp(database.db);
 const mailer = createMailer(config.smtpUrl ?? fakeSmtp!.url, config.mailFrom);
-const deps = { config, db: database.db, pool: database.pool, mailer, storage: localDiskStorage(config.storageDir) };
+// On an object store the in-process worker needs scratch space of its own; local disk uses <STORAGE_DIR>/tmp.
+const scratch = config.storage.kind === 's3' ? await prepareScratch(config.scratchDir) : null;
+const deps = { config, db: database.db, pool: database.pool, mailer, storage: createStorage(config, scratch?.dir) };
+process.stdout.write(`[arcbench] Clip storage: ${describeStorage(config)}\n`);
 const background: Background = await startBackground(deps);
 const app = createApp({ ...deps, ...background.deps });
 
@@ -36,6 +40,7 @@ async function shutdown(signal: string) {
   await background.stop().catch(() => {});
   mailer.close();
   await fakeSmtp?.close();
+  await scratch?.cleanup().catch(() => {});
   await database.close();
   process.exit(0);
 }

@@ -5,7 +5,7 @@ import type { SnapResult } from '../../shared/schemas/marking';
 import type { Db } from '../db/client';
 import { clipFrames } from '../db/schema/clips';
 import { notFound } from '../http/problem';
-import type { Storage } from '../storage/storage';
+import { readAll, type Storage } from '../storage/storage';
 import { loadClip } from './scope';
 
 export interface SnapRequest {
@@ -28,7 +28,8 @@ export async function snapOnStoredFrame(db: Db, storage: Storage, teamId: string
     .from(clipFrames)
     .where(and(eq(clipFrames.clipId, clip.id), eq(clipFrames.frameNumber, q.frameNumber)));
   if (!frame) throw notFound(`Frame ${q.frameNumber} has not been extracted for this clip.`);
-  const file = await storage.localPath(frame.storageKey);
+  // The frame's bytes (a small JPEG) from whichever store holds them.
+  const file = await readAll(storage, frame.storageKey);
   const { data, info } = await sharp(file).greyscale().raw().toBuffer({ resolveWithObject: true });
   const result = snapToCentroid({ width: info.width, height: info.height, channels: info.channels, data }, q.uPx, q.vPx, {
     windowPx: q.windowPx,

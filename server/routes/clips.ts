@@ -151,7 +151,7 @@ export function clipRoutes(api: RouteTable, deps: AppDeps) {
       let pts = row.framePtsS;
       let baseFps = row.baseFps;
       if (!pts || !(baseFps > 0)) {
-        const file = await storage.localPath(row.storageKey);
+        const file = await storage.mediaInput(row.storageKey);
         baseFps = (await probe(file)).baseFps;
         pts = await frameTimestamps(file);
       }

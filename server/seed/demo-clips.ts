@@ -13,7 +13,7 @@ import { clips } from '../db/schema/clips';
 import { launchers, projectiles, shots, testSeries } from '../db/schema/records';
 import { generateClip, presetSpec, type ClipSpec } from '../fixtures/clip-generator';
 import { extractNow } from '../jobs/extract-frames';
-import { localDiskStorage } from '../storage/local-disk';
+import { createStorage } from '../storage/create-storage';
 import { clipPrefix } from '../storage/storage';
 import { DEMO_LAUNCHER_NAMES, DEMO_PROJECTILE_NAMES, DEMO_SERIES_NAME } from './demo-records';
 import type { SeedStep } from './seed-demo';
@@ -60,7 +60,7 @@ async function seedClips(db: Db, teamId: string): Promise<void> {
     .where(and(eq(projectiles.teamId, teamId), eq(projectiles.name, DEMO_PROJECTILE_NAMES.foamHead40)));
 
   const config = loadConfig();
-  const storage = localDiskStorage(config.storageDir);
+  const storage = createStorage(config);
   let scratch: string | null = null;
   try {
     for (const demo of DEMO_SHOTS) {

@@ -1,5 +1,4 @@
 import { mulberry32, normalDeviates } from '../../shared/random/prng';
-import { readFile } from 'node:fs/promises';
 import { and, eq } from 'drizzle-orm';
 import { buildCalibrationTransform } from '../../shared/geometry/calibration-transform';
 import type { TrackKind } from '../../shared/schemas/marking';
@@ -15,8 +14,8 @@ import type { ClipTruth } from '../fixtures/clip-generator';
 import { buildFitSnapshot } from '../fits/build-fit-input';
 import { computeFit, storeFit } from '../fits/run-fit';
 import { calibrationValues } from '../marking/calibration-records';
-import { localDiskStorage } from '../storage/local-disk';
-import { clipPrefix } from '../storage/storage';
+import { createStorage } from '../storage/create-storage';
+import { clipPrefix, readAll } from '../storage/storage';
 import { demoPerson } from './demo-people';
 import { DEMO_SERIES_NAME } from './demo-records';
 import type { SeedStep } from './seed-demo';
@@ -80,7 +79,7 @@ async function ensureTrack(db: Db, teamId: string, clipId: string, name: string,
 }
 
 async function seedFits(db: Db, teamId: string): Promise<void> {
-  const storage = localDiskStorage(loadConfig().storageDir);
+  const storage = createStorage(loadConfig());
   const analyst = await userIdOf(db, demoPerson('analyst').email);
   const engineer = await userIdOf(db, demoPerson('engineer').email);
   const tracker = await userIdOf(db, demoPerson('tracker').email);
@@ -98,7 +97,7 @@ async function seedFits(db: Db, teamId: string): Promise<void> {
     if (!clip || clip.status !== 'ready') continue;
     const truthKey = `${clipPrefix(teamId, clip.id)}truth.json`;
     if (!(await storage.stat(truthKey))) continue;
-    const truth = JSON.parse(await readFile(await storage.localPath(truthKey), 'utf8')) as ClipTruth;
+    const truth = JSON.parse((await readAll(storage, truthKey)).toString('utf8')) as ClipTruth;
 
     await ensureCalibration(db, clip.id, truth, analyst);
     const noise = normalDeviates(mulberry32(plan.seed));

@@ -8,7 +8,7 @@ import { DEMO_STEPS } from '../../server/seed/demo-steps';
 import { DEMO_SERIES_NAME } from '../../server/seed/demo-records';
 import { seedDemo } from '../../server/seed/seed-demo';
 import { DEMO_PASSWORD, demoPerson } from '../../server/seed/demo-people';
-import { demoTeamId, filesUnder } from '../support/clips';
+import { demoTeamId, storedKeys } from '../support/clips';
 import { createTestApp, signInAs, type TestApp } from '../support/test-app';
 
 let t: TestApp;
@@ -52,13 +52,13 @@ describe('demo clips', () => {
 
   it('seeding again changes nothing', async () => {
     const before = await demoClips();
-    const filesBefore = filesUnder(t.deps.config.storageDir).filter((f) => before.clipRows.some((c) => f.includes(c.id)));
+    const filesBefore = (await storedKeys(t)).filter((f) => before.clipRows.some((c) => f.includes(c.id)));
     const framesBefore = await t.deps.db.select({ n: clipFrames.frameNumber }).from(clipFrames).where(eq(clipFrames.clipId, before.clipRows[0].id));
     expect(framesBefore).toHaveLength(before.clipRows[0].frameCount);
     await seedDemo(t.deps.db, DEMO_STEPS);
     const after = await demoClips();
     expect(after.shotRows).toEqual(before.shotRows);
     expect(after.clipRows.map((c) => [c.id, c.updatedAt.toISOString(), c.framesPrefix])).toEqual(before.clipRows.map((c) => [c.id, c.updatedAt.toISOString(), c.framesPrefix]));
-    expect(filesUnder(t.deps.config.storageDir).filter((f) => after.clipRows.some((c) => f.includes(c.id)))).toEqual(filesBefore);
+    expect((await storedKeys(t)).filter((f) => after.clipRows.some((c) => f.includes(c.id)))).toEqual(filesBefore);
   });
 });

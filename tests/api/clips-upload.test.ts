@@ -12,7 +12,7 @@ import { users } from '../../server/db/schema/users';
 import { generatePreset, type GeneratedClip } from '../../server/fixtures/clip-generator';
 import { DEMO_PASSWORD, demoPerson } from '../../server/seed/demo-people';
 import type { ClipFrameView, ClipView } from '../../shared/schemas/clips';
-import { createShot, demoTeamId, filesUnder, fixtureDir, tempStorageDir, uploadClip, waitForClip } from '../support/clips';
+import { createShot, demoTeamId, fixtureDir, scratchFiles, storedKeys, tempStorageDir, uploadClip, waitForClip } from '../support/clips';
 import { expectProblem } from '../support/problem';
 import { createTestApp, signInAs, uniqueSuffix, type TestApp } from '../support/test-app';
 import { eq } from 'drizzle-orm';
@@ -180,9 +180,10 @@ describe('changing a clip', () => {
     expect(frames.map((f) => f.frameNumber)).toEqual([10, 11, 12, 13, 14, 15, 16, 17, 18, 19]);
     expect(frames[0].tS).toBeCloseTo(10 / 240, 12);
     expectProblem(await analyst.get(`/api/teams/${teamId}/clips/${clip.id}/frames/9/image`), 404);
-    // Only the current frame set is kept in storage.
-    const versions = new Set(filesUnder(storageDir).filter((f) => f.includes(`/clips/${clip.id}/v-`)).map((f) => f.split('/v-')[1].split('/')[0]));
-    expect(versions.size).toBe(1);
+    // Only the current frame set is kept in storage: the old one goes right after the swap (a moment later on an object store).
+    const versions = async () => new Set((await storedKeys(t)).filter((f) => f.includes(`/clips/${clip.id}/v-`)).map((f) => f.split('/v-')[1].split('/')[0]));
+    for (let i = 0; i < 50 && (await versions()).size > 1; i++) await new Promise((r) => setTimeout(r, 100));
+    expect((await versions()).size).toBe(1);
   });
 
   it('rejects a range outside the clip', async () => {
@@ -203,7 +204,7 @@ describe('changing a clip', () => {
     const res = await analyst.delete(`/api/teams/${teamId}/clips/${clip.id}`);
     expect(res.status).toBe(204);
     expect(await t.deps.db.select().from(clips).where(eq(clips.id, clip.id))).toEqual([]);
-    expect(filesUnder(storageDir).filter((f) => f.includes(clip.id))).toEqual([]);
+    expect((await storedKeys(t)).filter((f) => f.includes(clip.id))).toEqual([]);
     expectProblem(await analyst.get(`/api/teams/${teamId}/clips/${clip.id}`), 404);
   });
 });
@@ -217,14 +218,14 @@ describe('cancelling an extraction', () => {
     expect(cancelled.status, JSON.stringify(cancelled.body)).toBe(200);
     expect(cancelled.body.status).toBe('cancelled');
     // A run that had started notices within a heartbeat and removes its scratch folder on the way out.
-    const scratch = () => filesUnder(storageDir).filter((f) => f.startsWith('tmp/extract/'));
+    const scratch = () => scratchFiles(t).filter((f) => f.includes(up.body.id));
     for (let i = 0; i < 200 && scratch().length > 0; i++) await new Promise((r) => setTimeout(r, 100));
     await new Promise((r) => setTimeout(r, 1500));
     expect(scratch()).toEqual([]);
     const after = (await analyst.get(`/api/teams/${teamId}/clips/${up.body.id}`)).body as ClipView;
     expect(after.status).toBe('cancelled');
     expect((await analyst.get(`/api/teams/${teamId}/clips/${up.body.id}/frames`)).body).toEqual([]);
-    expect(filesUnder(storageDir).filter((f) => f.includes(`/clips/${up.body.id}/v-`))).toEqual([]);
+    expect((await storedKeys(t)).filter((f) => f.includes(`/clips/${up.body.id}/v-`))).toEqual([]);
 
     expect((await analyst.post(`/api/teams/${teamId}/clips/${up.body.id}/extract`)).status).toBe(202);
     const ready = await waitForClip(analyst, teamId, up.body.id);

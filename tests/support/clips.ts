@@ -3,13 +3,16 @@
 import { existsSync, mkdtempSync, readdirSync } from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
-import { eq } from 'drizzle-orm';
+import { eq, inArray } from 'drizzle-orm';
 import type request from 'supertest';
 import type { Db } from '../../server/db/client';
+import { clips } from '../../server/db/schema/clips';
 import { shots, testSeries } from '../../server/db/schema/records';
 import { teams } from '../../server/db/schema/teams';
 import { DEMO_TEAM } from '../../server/seed/demo-people';
 import type { ClipView } from '../../shared/schemas/clips';
+import { s3Run } from './api-s3-run';
+import type { TestApp } from './test-app';
 
 export async function demoTeamId(db: Db): Promise<string> {
   const [team] = await db.select({ id: teams.id }).from(teams).where(eq(teams.slug, DEMO_TEAM.slug));
@@ -59,10 +62,38 @@ export async function waitForClip(
   }
 }
 
-/** A fresh storage root for one test file, so its leftovers can be counted. */
+/** A fresh storage root for one test file, so its leftovers can be counted (in the S3 run: one that must stay empty). */
 export function tempStorageDir(label: string): string {
+  const s3 = s3Run();
+  if (s3) return s3.newLocalStorageDir(`clips-${label}`);
   const base = process.env.ARCBENCH_TMP ?? os.tmpdir();
   return mkdtempSync(path.join(base, `clips-${label}-`));
+}
+
+/** Every stored object's key (whichever storage the app uses). */
+export function storedKeys(t: TestApp): Promise<string[]> {
+  return t.deps.storage.list('');
+}
+
+/** Extraction scratch files still present: under the storage's tmp/ on local disk, in the workers' own folders in the S3 run. */
+export function scratchFiles(t: TestApp): string[] {
+  const s3 = s3Run();
+  if (!s3) return filesUnder(t.deps.config.storageDir).filter((f) => f.startsWith('tmp/extract/'));
+  return s3.workerScratchDirs.flatMap((dir) => filesUnder(dir).filter((f) => f.startsWith('extract/')));
+}
+
+/**
+ * Objects under the team's clips whose clip has no row: what a rejected or
+ * broken upload would leave behind. Uploads of other test files that are
+ * between storing and recording show up for a moment, so callers poll.
+ */
+export async function unownedClipKeys(t: TestApp, teamId: string): Promise<string[]> {
+  const keys = await t.deps.storage.list(`teams/${teamId}/clips/`);
+  const ids = [...new Set(keys.map((k) => k.split('/')[3]))];
+  if (ids.length === 0) return [];
+  const rows = await t.deps.db.select({ id: clips.id }).from(clips).where(inArray(clips.id, ids));
+  const owned = new Set(rows.map((r) => r.id));
+  return keys.filter((k) => !owned.has(k.split('/')[3]));
 }
 
 /** Every file under a folder (relative paths). */
@@ -82,5 +113,6 @@ export function filesUnder(dir: string): string[] {
 
 /** Frames rendered by the generator land here for one test file. */
 export function fixtureDir(label: string): string {
-  return tempStorageDir(`fixtures-${label}`);
+  const base = process.env.ARCBENCH_TMP ?? os.tmpdir();
+  return mkdtempSync(path.join(base, `clips-fixtures-${label}-`));
 }

@@ -6,7 +6,8 @@ import { connect } from '../../server/db/client';
 import { startFakeSmtp } from '../../server/mail/fake-smtp';
 import { createMailer } from '../../server/mail/mailer';
 import { startJobQueue, type JobQueue } from '../../server/jobs/queue';
-import { localDiskStorage } from '../../server/storage/local-disk';
+import { createStorage } from '../../server/storage/create-storage';
+import { s3Run } from './api-s3-run';
 
 export interface TestApp {
   app: ReturnType<typeof createApp>;
@@ -27,11 +28,19 @@ export interface TestAppOptions {
 
 /** The real app on the real test database, with the local SMTP fake; one per test file. */
 export async function createTestApp(overrides: Partial<Config> = {}, extraDeps: Partial<AppDeps> = {}, options: TestAppOptions = {}): Promise<TestApp> {
-  const config = { ...loadConfig(), ...overrides };
+  const s3 = s3Run();
+  let config = { ...loadConfig(), ...overrides };
+  if (s3) {
+    // The S3 run (project api-s3): clips in the fake, jobs to the two `npm run worker`
+    // processes on the shared queue, and a local storage folder that must stay empty.
+    config = { ...loadConfig({ ...process.env, ...s3.storageEnv }), ...overrides, jobSchema: s3.jobSchema, inProcessWorker: false };
+    config.storageDir = overrides.storageDir ?? s3.newLocalStorageDir('app');
+    if (options.jobs === 'worker') options = { ...options, jobs: 'send-only' };
+  }
   const database = connect(config.databaseUrl, 4);
   const smtp = await startFakeSmtp(database.db);
   const mailer = createMailer(smtp.url, config.mailFrom);
-  const storage = localDiskStorage(config.storageDir);
+  const storage = createStorage(config, s3 ? s3.newLocalStorageDir('scratch') : undefined);
   const deps: AppDeps = { config, db: database.db, pool: database.pool, mailer, storage, ...extraDeps } as AppDeps;
   let queue: JobQueue | undefined;
   if (options.jobs) {
