@@ -1,7 +1,7 @@
 import { useState } from 'react';
-import type { ClipStatus, ClipView } from '@shared/schemas/clips';
-import { Badge, type BadgeTone } from '@/components/ui/badge';
+import type { ClipView } from '@shared/schemas/clips';
 import { Button } from '@/components/ui/button';
+import { ClipStatusBadge } from '@/components/ui/clip-status-badge';
 import { ConfirmDialog } from '@/components/ui/dialog';
 import { FormError } from '@/components/ui/form-error';
 import { ProgressBar } from '@/components/ui/progress-bar';
@@ -9,18 +9,6 @@ import { isWorking } from '@/api/clips/get-clip';
 import { useCancelClip } from '@/api/clips/cancel-clip';
 import { useDeleteClip } from '@/api/clips/delete-clip';
 import { useExtractClip } from '@/api/clips/extract-clip';
-
-const STATUS: Record<ClipStatus, { words: string; tone: BadgeTone }> = {
-  queued: { words: 'Waiting for the worker', tone: 'signal' },
-  extracting: { words: 'Extracting frames', tone: 'signal' },
-  ready: { words: 'Frames ready', tone: 'ok' },
-  failed: { words: 'Extraction failed', tone: 'alert' },
-  cancelled: { words: 'Extraction cancelled', tone: 'neutral' },
-};
-
-export function ClipStatusBadge({ status }: { status: ClipStatus }) {
-  return <Badge tone={STATUS[status].tone}>{STATUS[status].words}</Badge>;
-}
 
 /** Where the extraction stands, live, with the controls that make sense in that state. */
 export function ExtractionStatus({ teamId, clip, canEdit, onDeleted }: { teamId: string; clip: ClipView; canEdit: boolean; onDeleted: () => void }) {

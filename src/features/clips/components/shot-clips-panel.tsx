@@ -8,7 +8,7 @@ import { FormError } from '@/components/ui/form-error';
 import { LoadingBlock } from '@/components/ui/spinner';
 import { useShotClips } from '@/api/clips/list-shot-clips';
 import { ClipDetail } from './clip-detail';
-import { ClipStatusBadge } from './extraction-status';
+import { ClipStatusBadge } from '@/components/ui/clip-status-badge';
 import { UploadClipForm } from './upload-clip-form';
 
 /** The clips of one shot: upload, pick one, follow its extraction, look at its frames. */

@@ -2,7 +2,7 @@ import { useMemo } from 'react';
 import { Link } from 'react-router';
 import { createColumnHelper, rowSortingFeature, tableFeatures, useTable, type SortingState } from '@tanstack/react-table';
 import type { Shot, ShotSort } from '@shared/schemas/records';
-import { Badge, type BadgeTone } from '@/components/ui/badge';
+import { ClipStatusBadge } from '@/components/ui/clip-status-badge';
 import { cx } from '@/components/ui/cx';
 import { EmptyState } from '@/components/ui/empty-state';
 import { LoadingBlock } from '@/components/ui/spinner';
@@ -13,18 +13,10 @@ import { formatNumber, formatQuantity } from '@/lib/format';
 const features = tableFeatures({ rowSortingFeature });
 const col = createColumnHelper<typeof features, Shot>();
 
-const CLIP_TONES: Record<string, BadgeTone> = { queued: 'signal', extracting: 'signal', ready: 'ok', failed: 'alert', cancelled: 'neutral' };
-const CLIP_WORDS: Record<string, string> = { queued: 'waiting', extracting: 'extracting', ready: 'frames ready', failed: 'failed', cancelled: 'cancelled' };
 
-export function ClipStatusBadge({ clip }: { clip: Shot['latestClip'] }) {
+function LatestClipBadge({ clip }: { clip: Shot['latestClip'] }) {
   if (!clip) return <span className="text-micro text-ink-faint">no clip</span>;
-  const working = clip.status === 'extracting';
-  return (
-    <Badge tone={CLIP_TONES[clip.status] ?? 'neutral'}>
-      {CLIP_WORDS[clip.status] ?? clip.status}
-      {working && ` ${Math.round(clip.progress * 100)}%`}
-    </Badge>
-  );
+  return <ClipStatusBadge status={clip.status} progress={clip.progress} short />;
 }
 
 export interface ShotsTableProps {
@@ -59,7 +51,7 @@ export function ShotsTable({ teamId, shots, loading, sort, dir, onSortChange }: 
           meta: { numeric: true },
           cell: (info) => formatNumber(info.getValue() === null ? null : info.getValue()! / 1000, { decimals: 0 }),
         }),
-        col.accessor('latestClip', { id: 'clip', header: 'Clip', enableSorting: false, cell: (info) => <ClipStatusBadge clip={info.getValue()} /> }),
+        col.accessor('latestClip', { id: 'clip', header: 'Clip', enableSorting: false, cell: (info) => <LatestClipBadge clip={info.getValue()} /> }),
       ]),
     [teamId],
   );
