@@ -6,6 +6,7 @@ import { and, asc, eq } from 'drizzle-orm';
 import { airForFit } from '../../shared/fits/air-conditions';
 import type { FitInputSnapshot, SnapshotMark } from '../../shared/fits/snapshot';
 import { buildCalibrationTransform, type CalibrationGeometry } from '../../shared/geometry/calibration-transform';
+import { markTimeAndPlace } from '../../shared/marking/mark-world';
 import type { FitShotInput } from '../../shared/physics/types';
 import { isFlagged, type FitMarkCounts } from '../../shared/schemas/auto-mark';
 import { reviewThresholdOf } from '../automark/settings';
@@ -69,10 +70,10 @@ export async function buildFitSnapshot(db: Db, teamId: string, trackId: string):
   const timeOf = await loadFrameTimes(db, clip, fitRows.map((m) => m.frameNumber));
   const snapshotMarks: SnapshotMark[] = [];
   for (const m of fitRows) {
-    const tS = timeOf(m.frameNumber);
+    const { tS, xM, yM } = markTimeAndPlace(m, transform, timeOf);
     if (tS === null) throw unprocessable(`Frame ${m.frameNumber} has no time: the clip has no frame table and no capture rate.`);
-    const w = transform.imageToWorld({ u: m.uPx, v: m.vPx });
-    snapshotMarks.push({ frameNumber: m.frameNumber, tS, uPx: m.uPx, vPx: m.vPx, xM: w.x, yM: w.y });
+    if (xM === null || yM === null) throw new Error('a calibrated transform gave no world position');
+    snapshotMarks.push({ frameNumber: m.frameNumber, tS, uPx: m.uPx, vPx: m.vPx, xM, yM });
   }
   snapshotMarks.sort((a, b) => a.tS - b.tS);
   const muzzleWorld = muzzleMark ? transform.imageToWorld({ u: muzzleMark.uPx, v: muzzleMark.vPx }) : null;

@@ -1,12 +1,12 @@
 import { and, asc, eq, inArray } from 'drizzle-orm';
+import { frameTimeS } from '../../shared/marking/frame-time';
 import type { Db } from '../db/client';
 import { clipFrames } from '../db/schema/clips';
 import type { ClipScope } from './scope';
 
 /**
- * Frame times in capture seconds: the extracted frame table where there is
- * one (it knows about dropped and duplicated frames), else frame / capture
- * rate. `frameNumbers` limits the lookup; omit it to load the whole table.
+ * Frame times in capture seconds by the one rule (shared/marking/frame-time.ts)
+ * over the clip's frame table. `frameNumbers` limits the lookup; omit it to load the whole table.
  */
 export async function loadFrameTimes(db: Pick<Db, 'select'>, clip: ClipScope, frameNumbers?: number[]): Promise<(frame: number) => number | null> {
   const times = new Map<number, number>();
@@ -17,7 +17,7 @@ export async function loadFrameTimes(db: Pick<Db, 'select'>, clip: ClipScope, fr
       .where(frameNumbers ? and(eq(clipFrames.clipId, clip.id), inArray(clipFrames.frameNumber, frameNumbers)) : eq(clipFrames.clipId, clip.id));
     for (const r of rows) times.set(r.frameNumber, r.tS);
   }
-  return (frame) => times.get(frame) ?? (clip.captureFps > 0 ? frame / clip.captureFps : null);
+  return (frame) => frameTimeS(frame, times.get(frame), clip.captureFps);
 }
 
 export interface FrameMatch {

@@ -1,5 +1,6 @@
 import { asc, eq } from 'drizzle-orm';
 import type { CalibrationTransform } from '../../shared/geometry/calibration-transform';
+import { markTimeAndPlace } from '../../shared/marking/mark-world';
 import type { Mark } from '../../shared/schemas/marking';
 import type { Db } from '../db/client';
 import { marks } from '../db/schema/marking';
@@ -30,7 +31,6 @@ export async function markContext(db: Pick<Db, 'select'>, clip: ClipScope, frame
 }
 
 export function markView(row: MarkRow, updaterName: string | null, ctx: MarkContext): Mark {
-  const world = ctx.transform ? ctx.transform.imageToWorld({ u: row.uPx, v: row.vPx }) : null;
   return {
     frameNumber: row.frameNumber,
     uPx: row.uPx,
@@ -44,8 +44,6 @@ export function markView(row: MarkRow, updaterName: string | null, ctx: MarkCont
     revision: row.revision,
     updatedBy: row.updatedBy && updaterName !== null ? { id: row.updatedBy, displayName: updaterName } : null,
     updatedAt: row.updatedAt.toISOString(),
-    tS: ctx.frameTime(row.frameNumber),
-    xM: world ? world.x : null,
-    yM: world ? world.y : null,
+    ...markTimeAndPlace(row, ctx.transform, ctx.frameTime),
   };
 }
