@@ -3,6 +3,7 @@
 // conditions, the projectile and launcher. Returns the snapshot that is stored
 // with the fit; its `fitInput` is what fitShot sees.
 import { and, asc, eq } from 'drizzle-orm';
+import { PROJECTILE_DIAMETER_SIGMA_M, PROJECTILE_MASS_SIGMA_KG } from '../../shared/defaults';
 import { airForFit } from '../../shared/fits/air-conditions';
 import type { FitInputSnapshot, SnapshotMark } from '../../shared/fits/snapshot';
 import { buildCalibrationTransform, type CalibrationGeometry } from '../../shared/geometry/calibration-transform';
@@ -17,14 +18,6 @@ import { launchers, projectiles, shots } from '../db/schema/records';
 import { notFound, unprocessable } from '../http/problem';
 import { calibrationGeometryOf, currentCalibrationRow } from '../marking/calibration-records';
 import { loadFrameTimes } from '../marking/frame-times';
-
-/**
- * Standard uncertainties of the projectile record when it states none.
- * Common practice: a 0.1 g balance reading and a vernier calliper (0.05 mm),
- * each taken as the standard uncertainty.
- */
-export const DEFAULT_MASS_SIGMA_KG = 1e-4;
-export const DEFAULT_DIAMETER_SIGMA_M = 5e-5;
 
 export async function buildFitSnapshot(db: Db, teamId: string, trackId: string): Promise<FitInputSnapshot> {
   const [track] = await db.select().from(tracks).where(and(eq(tracks.id, trackId), eq(tracks.teamId, teamId)));
@@ -79,8 +72,8 @@ export async function buildFitSnapshot(db: Db, teamId: string, trackId: string):
   const muzzleWorld = muzzleMark ? transform.imageToWorld({ u: muzzleMark.uPx, v: muzzleMark.vPx }) : null;
 
   const air = airForFit(shot);
-  const massSigma = DEFAULT_MASS_SIGMA_KG;
-  const diameterSigma = DEFAULT_DIAMETER_SIGMA_M;
+  const massSigma = PROJECTILE_MASS_SIGMA_KG;
+  const diameterSigma = PROJECTILE_DIAMETER_SIGMA_M;
   const fitInput: FitShotInput = {
     marks: snapshotMarks.map((m) => ({ tS: m.tS, xM: m.xM, yM: m.yM })),
     massKg: projectile.massKg,

@@ -1,26 +1,14 @@
 // Air density for a fit from the shot's recorded conditions, with a standard
 // uncertainty propagated from how well those conditions are usually known.
 import { humidAirDensityKgM3 } from '../physics/air';
+import {
+  UNKNOWN_AIR_DENSITY_KG_M3,
+  UNKNOWN_AIR_DENSITY_REL_SIGMA,
+  UNKNOWN_RELATIVE_HUMIDITY_PCT,
+  UNKNOWN_RELATIVE_HUMIDITY_SIGMA_PCT,
+  WEATHER_READING_SIGMAS as CONDITION_SIGMAS,
+} from '../defaults';
 import { SEA_LEVEL_TEMPERATURE_K, ZERO_CELSIUS_K } from '../physics/constants';
-
-/**
- * Standard uncertainties of field weather readings. Common practice for a
- * hand-held weather meter at the firing point, not a calibrated station:
- * ±0.5 K, ±50 Pa, ±5 %RH (one sigma).
- */
-export const CONDITION_SIGMAS = { temperatureK: 0.5, pressurePa: 50, relativeHumidityPct: 5 } as const;
-
-/** US Standard Atmosphere 1976 sea-level density, used when the shot has no conditions. */
-export const STANDARD_SEA_LEVEL_DENSITY_KG_M3 = 1.225;
-/**
- * Relative uncertainty of assuming the standard sea-level density: ordinary
- * weather and modest site altitude move density by several per cent (from
- * memory: about ±5 % between a hot and a cold day at sea level), so 3 % (one sigma).
- */
-export const STANDARD_DENSITY_REL_SIGMA = 0.03;
-/** Relative humidity assumed when none was recorded, with a wide sigma. */
-const DEFAULT_RH_PCT = 50;
-const DEFAULT_RH_SIGMA_PCT = 29; // uniform over 0..100 %: 100/√12 (GUM §4.3.7)
 
 export interface ShotConditions {
   airTempC: number | null;
@@ -39,16 +27,16 @@ export interface AirForFit {
 export function airForFit(c: ShotConditions): AirForFit {
   if (c.airTempC === null || c.stationPressurePa === null) {
     return {
-      densityKgM3: STANDARD_SEA_LEVEL_DENSITY_KG_M3,
-      densitySigmaKgM3: STANDARD_SEA_LEVEL_DENSITY_KG_M3 * STANDARD_DENSITY_REL_SIGMA,
+      densityKgM3: UNKNOWN_AIR_DENSITY_KG_M3,
+      densitySigmaKgM3: UNKNOWN_AIR_DENSITY_KG_M3 * UNKNOWN_AIR_DENSITY_REL_SIGMA,
       temperatureK: c.airTempC === null ? SEA_LEVEL_TEMPERATURE_K : c.airTempC + ZERO_CELSIUS_K,
       source: 'US Standard Atmosphere 1976 at sea level (the shot has no air temperature and station pressure)',
       sigmaSource: 'stated default: 3 % for weather and site altitude not recorded',
     };
   }
   const rhMeasured = c.relativeHumidityPct !== null;
-  const rhPct = c.relativeHumidityPct ?? DEFAULT_RH_PCT;
-  const rhSigma = rhMeasured ? CONDITION_SIGMAS.relativeHumidityPct : DEFAULT_RH_SIGMA_PCT;
+  const rhPct = c.relativeHumidityPct ?? UNKNOWN_RELATIVE_HUMIDITY_PCT;
+  const rhSigma = rhMeasured ? CONDITION_SIGMAS.relativeHumidityPct : UNKNOWN_RELATIVE_HUMIDITY_SIGMA_PCT;
   const rho = (tC: number, p: number, rh: number) =>
     humidAirDensityKgM3({ temperatureC: tC, pressurePa: p, relativeHumidity: Math.min(1, Math.max(0, rh / 100)) });
   const value = rho(c.airTempC, c.stationPressurePa, rhPct);

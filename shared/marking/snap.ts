@@ -7,6 +7,7 @@
 // symmetric blob, to a small fraction of a pixel, where the brightest/darkest
 // pixel is only good to ±0.5 px. Pixel (i, j) covers [i, i+1) × [j, j+1), so
 // its centre is (i + 0.5, j + 0.5) in the same continuous coordinates marks use.
+import { SNAP_WINDOW_PX } from '../defaults';
 
 export interface SnapImage {
   width: number;
@@ -158,7 +159,7 @@ function centroidPass(image: SnapImage, cu: number, cv: number, half: number, da
  * more than half a window from the click, i.e. it locked onto something else).
  */
 export function snapToCentroid(image: SnapImage, clickU: number, clickV: number, options: SnapOptions = {}): SnapResult | null {
-  const windowPx = Math.max(5, Math.round(options.windowPx ?? 21));
+  const windowPx = Math.max(5, Math.round(options.windowPx ?? SNAP_WINDOW_PX));
   const half = Math.floor(windowPx / 2);
   const dark = options.dark ?? true;
   const iterations = Math.max(1, options.iterations ?? 3);

@@ -1,9 +1,10 @@
 // The fit command's logic, kept free of process and file-system access so it
 // can be tested directly: argument parsing, running fitShot, and the printed
 // summary. server/cli/fit.ts only wires these to argv, the file and stdout.
+import { UNKNOWN_AIR_DENSITY_KG_M3 } from '../defaults';
 import { humidAirDensityKgM3 } from './air';
 import { fitShot } from './fit-shot';
-import { parseMarksCsv } from './marks-csv';
+import { parseFitMarksCsv } from '../marking/marks-csv';
 import type { Estimate, FitShotResult } from './types';
 import { FitInputError } from './validate-marks';
 
@@ -11,8 +12,6 @@ export const FIT_USAGE =
   'usage: fit <marks.csv> --mass-kg M --diameter-m D [--air-density-kgm3 R | --temp-c T --pressure-hpa P --rh H] ' +
   '[--muzzle-x-m X --muzzle-y-m Y]';
 
-/** Air density used when none is given: US Standard Atmosphere 1976 at sea level. */
-export const DEFAULT_AIR_DENSITY_KGM3 = 1.225;
 
 export interface FitCliOptions {
   csvPath: string;
@@ -81,7 +80,7 @@ export function airDensityFor(options: FitCliOptions): number {
         pressurePa: options.air.pressureHpa * 100,
         relativeHumidity: options.air.rhPercent / 100,
       });
-    default: return DEFAULT_AIR_DENSITY_KGM3;
+    default: return UNKNOWN_AIR_DENSITY_KG_M3;
   }
 }
 
@@ -135,10 +134,10 @@ export function runFitCli(argv: string[], readText: (path: string) => string): C
       const code = (e as { code?: string }).code;
       throw new FitInputError(`cannot read ${options.csvPath}${code ? ` (${code})` : ''}`);
     }
-    const marks = parseMarksCsv(text);
+    const marks = parseFitMarksCsv(text);
     const airDensityKgM3 = airDensityFor(options);
     const cautions = options.air.kind === 'default'
-      ? [`No air data given: assumed ${DEFAULT_AIR_DENSITY_KGM3} kg/m^3 (standard sea level); Cd scales inversely with it.`]
+      ? [`No air data given: assumed ${UNKNOWN_AIR_DENSITY_KG_M3} kg/m^3 (standard sea level); Cd scales inversely with it.`]
       : [];
     const result = fitShot({ marks, massKg: options.massKg, diameterM: options.diameterM, airDensityKgM3, muzzle: options.muzzle });
     return { exitCode: 0, stdout: `${JSON.stringify(summarise(result, airDensityKgM3, cautions), null, 2)}\n`, stderr: '' };

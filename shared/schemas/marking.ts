@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { CLICK_SIGMA_PX, SNAP_WINDOW_PX } from '../defaults';
 import { PixelPoint } from '../geometry/points';
 import { MarkSource } from './auto-mark';
 import { Uuid } from './common';
@@ -26,7 +27,7 @@ export const ScaleReference = z.object({
   /** Stated tolerance ±a of the length, treated as a uniform distribution (GUM §4.3.7). */
   lengthTolM: finite('lengthTolM').refine((v) => v >= 0, 'lengthTolM must be 0 or more').default(0),
   /** Standard uncertainty of placing each end point, pixels. */
-  endpointSigmaPx: finite('endpointSigmaPx').refine((v) => v >= 0 && v <= 50, 'endpointSigmaPx must be between 0 and 50').default(0.5),
+  endpointSigmaPx: finite('endpointSigmaPx').refine((v) => v >= 0 && v <= 50, 'endpointSigmaPx must be between 0 and 50').default(CLICK_SIGMA_PX),
 });
 export type ScaleReference = z.infer<typeof ScaleReference>;
 
@@ -266,7 +267,7 @@ export const MarksExportQuery = z.object({ kind: MarksCsvKind.default('pixel') }
 export const SnapBody = z.object({
   uPx: finite('uPx'),
   vPx: finite('vPx'),
-  windowPx: z.number().int().min(5).max(101).default(21),
+  windowPx: z.number().int().min(5).max(101).default(SNAP_WINDOW_PX),
   /** true: a dark projectile on a lighter background (the usual case). */
   dark: z.boolean().default(true),
 });

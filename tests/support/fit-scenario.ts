@@ -9,7 +9,7 @@ import type request from 'supertest';
 import { expect } from 'vitest';
 import { generatePreset, type GeneratedClip } from '../../server/fixtures/clip-generator';
 import { dryAirDensityKgM3 } from '../../shared/physics/air';
-import { gaussian, mulberry32 } from '../unit/physics/support/prng';
+import { mulberry32, normalDeviates } from '../../shared/random/prng';
 import { uniqueSuffix } from './test-app';
 
 /**
@@ -95,7 +95,7 @@ export async function calibrateFromTruth(a: request.Agent, teamId: string, clipI
 
 /** The truth marks with N(0, sigmaPx²) noise on u and v, seeded so every run places the same marks. */
 export function noisyTruthMarks(truth: GeneratedClip['truth'], sigmaPx: number, seed: number) {
-  const noise = gaussian(mulberry32(seed));
+  const noise = normalDeviates(mulberry32(seed));
   return truth.frames.map((f) => ({ frameNumber: f.frameNumber, uPx: f.uPx + sigmaPx * noise(), vPx: f.vPx + sigmaPx * noise() }));
 }
 

@@ -2,7 +2,8 @@
 // JSON its input hash is taken over, the digits its numbers print with, and the
 // curves the page and the PDF draw.
 import { describe, expect, it } from 'vitest';
-import { airForFit, STANDARD_SEA_LEVEL_DENSITY_KG_M3 } from '../../../shared/fits/air-conditions';
+import { airForFit } from '../../../shared/fits/air-conditions';
+import { UNKNOWN_AIR_DENSITY_KG_M3 } from '../../../shared/defaults';
 import { dragFreePathAt, finiteDifferenceSpeeds } from '../../../shared/fits/curves';
 import { decimalsFor, formatInterval } from '../../../shared/fits/format';
 import { canonicalJson, inputHash } from '../../../server/fits/input-hash';
@@ -31,7 +32,7 @@ describe('air density for a fit', () => {
 
   it('without conditions falls back to the standard sea-level density with a wide sigma, and says so', () => {
     const air = airForFit({ airTempC: null, stationPressurePa: null, relativeHumidityPct: null });
-    expect(air.densityKgM3).toBe(STANDARD_SEA_LEVEL_DENSITY_KG_M3); // 1.225 kg/m³, US Standard Atmosphere 1976
+    expect(air.densityKgM3).toBe(UNKNOWN_AIR_DENSITY_KG_M3); // 1.225 kg/m³, US Standard Atmosphere 1976
     expect(air.source).toMatch(/Standard Atmosphere/);
     expect(air.densitySigmaKgM3 / air.densityKgM3).toBeCloseTo(0.03, 10);
   });

@@ -8,7 +8,7 @@ import {
 } from '../../../shared/geometry/calibration-transform';
 import { applyHomography } from '../../../shared/geometry/homography';
 import { GeometryError } from '../../../shared/geometry/points';
-import { seededRandom } from './prng';
+import { mulberry32 } from '../../../shared/random/prng';
 
 const SQRT3 = Math.sqrt(3);
 
@@ -86,7 +86,7 @@ describe('frame pixels → world metres, closed forms', () => {
 
   it('round trip world → image → world within 1e-9 (no plane correction, roll 7.3°, left)', () => {
     const t = buildCalibrationTransform({ ...level0(), level: { kind: 'angle', rollDeg: 7.3 }, downrange: 'left' });
-    const rand = seededRandom(7);
+    const rand = mulberry32(7);
     for (let i = 0; i < 200; i++) {
       const w = { x: rand() * 20 - 5, y: rand() * 8 - 1 };
       const back = t.imageToWorld(t.worldToImage(w));
@@ -131,7 +131,7 @@ describe('plane correction recovers a known camera', () => {
 
   it('round trip world → image → world within 1e-9', () => {
     const t = buildCalibrationTransform(cameraCalibration());
-    const rand = seededRandom(11);
+    const rand = mulberry32(11);
     for (let i = 0; i < 200; i++) {
       const w = { x: rand() * 4 - 0.5, y: rand() * 2 };
       const back = t.imageToWorld(t.worldToImage(w));

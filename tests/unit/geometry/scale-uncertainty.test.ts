@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { scaleWithUncertainty } from '../../../shared/geometry/scale-uncertainty';
-import { gaussian, seededRandom } from './prng';
+import { mulberry32, normalDeviates } from '../../../shared/random/prng';
 
 describe('pixels per metre and its uncertainty (GUM, JCGM 100:2008)', () => {
   it('combines a uniform length tolerance (§4.3.7: a/√3) and end-point σ (√2·σ) in quadrature', () => {
@@ -21,11 +21,12 @@ describe('pixels per metre and its uncertainty (GUM, JCGM 100:2008)', () => {
     const a = 0.003;
     const sigma = 0.8;
     const truePx = 150;
-    const rand = seededRandom(2026);
+    const rand = mulberry32(2026);
+    const normal = normalDeviates(rand);
     const samples: number[] = [];
     for (let i = 0; i < 200_000; i++) {
       const length = lengthM + (rand() * 2 - 1) * a; // uniform ±a
-      const px = truePx + sigma * gaussian(rand) - sigma * gaussian(rand); // each end point along the bar
+      const px = truePx + sigma * normal() - sigma * normal(); // each end point along the bar
       samples.push(px / length);
     }
     const mean = samples.reduce((s, x) => s + x, 0) / samples.length;

@@ -6,7 +6,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { generatePreset, type GeneratedClip } from '../../../server/fixtures/clip-generator';
 import { extractFrames, frameFileName } from '../../../server/media/ffmpeg';
 import { snapToCentroid } from '../../../shared/marking/snap';
-import { seededRandom } from '../geometry/prng';
+import { mulberry32 } from '../../../shared/random/prng';
 
 // The real path a mark takes: the generator renders a clip with known truth
 // (supersampled disc coverage, so its centroid is the truth position), x264
@@ -39,7 +39,7 @@ function medianOf(values: number[]): number {
 
 describe('snap on a generated clean clip (extracted JPEG frames)', () => {
   it('clicks within ±3 px of the truth snap back to within 0.3 px (median), as the workspace issue requires', async () => {
-    const rand = seededRandom(42);
+    const rand = mulberry32(42);
     const errors: number[] = [];
     const clickErrors: number[] = [];
     for (const truth of clip.truth.frames) {

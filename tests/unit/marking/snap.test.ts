@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { snapToCentroid } from '../../../shared/marking/snap';
-import { gaussian, seededRandom } from '../geometry/prng';
+import { mulberry32, normalDeviates } from '../../../shared/random/prng';
 import { renderDisc } from './render-disc';
 
 function medianOf(values: number[]): number {
@@ -10,7 +10,8 @@ function medianOf(values: number[]): number {
 
 /** Renders discs at random sub-pixel centres, clicks within ±3 px of each, and returns the snap errors. */
 function snapErrors(opts: { seed: number; trials: number; radiusPx: number; noiseSigma: number; channels?: 1 | 4; dark?: boolean }) {
-  const rand = seededRandom(opts.seed);
+  const rand = mulberry32(opts.seed);
+  const normal = normalDeviates(rand);
   const errors: number[] = [];
   for (let t = 0; t < opts.trials; t++) {
     const cu = 30 + rand() * 10;
@@ -24,7 +25,7 @@ function snapErrors(opts: { seed: number; trials: number; radiusPx: number; nois
       background: opts.dark === false ? 30 : 190,
       foreground: opts.dark === false ? 220 : 35,
       channels: opts.channels,
-      noise: opts.noiseSigma > 0 ? () => opts.noiseSigma * gaussian(rand) : undefined,
+      noise: opts.noiseSigma > 0 ? () => opts.noiseSigma * normal() : undefined,
     });
     const clickU = cu + (rand() * 6 - 3);
     const clickV = cv + (rand() * 6 - 3);
@@ -49,7 +50,7 @@ describe('sub-pixel snap on rendered discs with known centres', () => {
   });
 
   it('shaded background (1.5 grey levels per px across the window) does not pull the centroid', () => {
-    const rand = seededRandom(6);
+    const rand = mulberry32(6);
     const errors: number[] = [];
     for (let t = 0; t < 30; t++) {
       const cu = 30 + rand() * 4;
@@ -80,10 +81,10 @@ describe('sub-pixel snap on rendered discs with known centres', () => {
   });
 
   it('returns null on plain background, noise only, or a click outside the frame', () => {
-    const rand = seededRandom(5);
+    const normal = normalDeviates(mulberry32(5));
     const flat = renderDisc({ width: 64, height: 64, centreU: -50, centreV: -50, radiusPx: 4, background: 180, foreground: 30 });
     expect(snapToCentroid(flat, 32, 32)).toBeNull();
-    const noisy = renderDisc({ width: 64, height: 64, centreU: -50, centreV: -50, radiusPx: 4, background: 180, foreground: 30, noise: () => 2 * gaussian(rand) });
+    const noisy = renderDisc({ width: 64, height: 64, centreU: -50, centreV: -50, radiusPx: 4, background: 180, foreground: 30, noise: () => 2 * normal() });
     expect(snapToCentroid(noisy, 32, 32)).toBeNull();
     expect(snapToCentroid(flat, -1, 10)).toBeNull();
   });

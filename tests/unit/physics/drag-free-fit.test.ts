@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { fitDragFree } from '../../../shared/physics/drag-free-fit';
-import { gaussian, mulberry32 } from './support/prng';
+import { mulberry32, normalDeviates } from '../../../shared/random/prng';
 
 const G = 9.80665;
 
@@ -31,7 +31,7 @@ describe('drag-free fit', () => {
   });
 
   it('noisy data: intervals contain the truth and standard errors scale like the noise', () => {
-    const noise = gaussian(mulberry32(42));
+    const noise = normalDeviates(mulberry32(42));
     const marks = parabola(120, 240).map((m) => ({ ...m, xM: m.xM + 0.002 * noise(), yM: m.yM + 0.002 * noise() }));
     const r = fitDragFree(marks).result;
     expect(r.launchSpeedMps.ci95[0]).toBeLessThan(15);

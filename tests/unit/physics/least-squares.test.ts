@@ -1,10 +1,10 @@
 import { describe, expect, it } from 'vitest';
 import { leastSquares } from '../../../shared/physics/least-squares';
 import { linearLeastSquares } from '../../../shared/physics/linear-least-squares';
-import { gaussian, mulberry32 } from './support/prng';
+import { mulberry32, normalDeviates } from '../../../shared/random/prng';
 
 describe('generic least squares', () => {
-  const noise = gaussian(mulberry32(99));
+  const noise = normalDeviates(mulberry32(99));
   const x = Array.from({ length: 40 }, (_, i) => i / 10);
   const y = x.map((v) => 2 - 0.7 * v + 0.05 * v * v + 0.01 * noise());
 

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { parseMarksCsv } from '../../../shared/physics/marks-csv';
+import { parseFitMarksCsv } from '../../../shared/marking/marks-csv';
 import { airDensityFor, parseFitArgs, runFitCli } from '../../../shared/physics/fit-cli';
 import { FitInputError } from '../../../shared/physics/validate-marks';
 
@@ -8,14 +8,14 @@ const rows = (n: number) => Array.from({ length: n }, (_, i) => `${(i / 240).toF
 describe('marks CSV', () => {
   it('reads t_s,x_m,y_m with CRLF, a BOM, blank lines and columns in any order', () => {
     const text = '\uFEFFy_m,t_s,x_m,note\r\n1.0,0.0,0.0,a\r\n\r\n1.1,0.01,0.2,b\r\n1.2,0.02,0.4,c\r\n1.3,0.03,0.6,d\r\n1.4,0.04,0.8,e\r\n';
-    const marks = parseMarksCsv(text);
+    const marks = parseFitMarksCsv(text);
     expect(marks).toHaveLength(5);
     expect(marks[1]).toEqual({ tS: 0.01, xM: 0.2, yM: 1.1 });
   });
 
   it('reads an optional sigma_m column', () => {
     const text = ['t_s,x_m,y_m,sigma_m', ...rows(6).map((r) => `${r},0.002`)].join('\n');
-    expect(parseMarksCsv(text)[0].sigmaM).toBe(0.002);
+    expect(parseFitMarksCsv(text)[0].sigmaM).toBe(0.002);
   });
 
   it.each([
@@ -28,8 +28,8 @@ describe('marks CSV', () => {
     ['ragged row', ['t_s,x_m,y_m', ...rows(5), '1,2'].join('\n'), /expected 3 fields/],
     ['empty file', '', /empty/],
   ])('rejects %s', (_label, text, message) => {
-    expect(() => parseMarksCsv(text)).toThrow(FitInputError);
-    expect(() => parseMarksCsv(text)).toThrow(message);
+    expect(() => parseFitMarksCsv(text)).toThrow(FitInputError);
+    expect(() => parseFitMarksCsv(text)).toThrow(message);
   });
 });
 

@@ -1,18 +1,16 @@
 // Between the editor's calibration draft, the API's Calibration and the
 // shared transform. The transform itself lives in shared/geometry, so the
 // client shows exactly the world coordinates the server stores.
+import { CLICK_SIGMA_PX } from '@shared/defaults';
 import { buildCalibrationTransform, type CalibrationGeometry, type CalibrationTransform } from '@shared/geometry/calibration-transform';
 import type { Calibration, CalibrationCreateBody } from '@shared/schemas/marking';
 import type { CalibrationDraft } from './types';
-
-/** Standard uncertainty of clicking an end point, px: half a pixel is common practice for a careful click at 100 %. */
-export const DEFAULT_ENDPOINT_SIGMA_PX = 0.5;
 
 /** A draft becomes usable once it has a scale and an origin; without a level line the camera is taken as level. */
 export function draftToGeometry(draft: CalibrationDraft): CalibrationGeometry | null {
   if (!draft.scale || !draft.origin) return null;
   return {
-    scale: { ...draft.scale, endpointSigmaPx: DEFAULT_ENDPOINT_SIGMA_PX },
+    scale: { ...draft.scale, endpointSigmaPx: CLICK_SIGMA_PX },
     origin: draft.origin,
     level: draft.level ?? { kind: 'angle', rollDeg: 0 },
     downrange: draft.downrange,

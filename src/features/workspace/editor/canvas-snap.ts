@@ -1,11 +1,10 @@
 // Snap on the pixels the browser already has: copy a small patch of the
 // decoded frame into a canvas and run the shared centroid snap on it (the
 // same function the server's snap endpoint runs on the stored frame).
+import { SNAP_WINDOW_PX } from '@shared/defaults';
 import { snapToCentroid } from '@shared/marking/snap';
 import type { Point } from './types';
 
-/** Side of the search window, px (the API's default). */
-export const SNAP_WINDOW_PX = 21;
 /** Patch copied around the click: room for the window to re-centre a few pixels. */
 const PATCH_PX = 64;
 /** Below this confidence the snap is not trusted and the click stays as placed. */

@@ -1,7 +1,7 @@
 // Synthetic marks from a known shot, for round-trip tests and the bench.
 import { simulateTrajectory } from '../../../../shared/physics/flight';
 import type { FitMark } from '../../../../shared/physics/types';
-import { gaussian, mulberry32 } from './prng';
+import { mulberry32, normalDeviates } from '../../../../shared/random/prng';
 
 export interface SyntheticShot {
   speedMps: number;
@@ -27,6 +27,6 @@ export function syntheticMarks(shot: SyntheticShot): FitMark[] {
     { timesS: t0 > 0 ? [0, ...times] : times, rtol: 1e-12, atol: 1e-12 },
   );
   const pts = t0 > 0 ? traj.points.slice(1) : traj.points;
-  const noise = gaussian(mulberry32(shot.seed));
+  const noise = normalDeviates(mulberry32(shot.seed));
   return pts.map((p) => ({ tS: p.tS, xM: p.xM + shot.noiseM * noise(), yM: p.yM + shot.noiseM * noise() }));
 }
