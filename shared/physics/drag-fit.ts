@@ -12,12 +12,38 @@ import { PositionSampler, type FlightModel, type LaunchState } from './flight';
 import { leastSquares, type LeastSquaresResult } from './least-squares';
 import type { FitMark } from './types';
 
+/**
+ * The drag fit's parameter vector, in the one ordering every file uses: the
+ * launch state (same order as the flight state x, y, vx, vy, with the velocity
+ * in polar form) followed by k. Arrays stay inside the optimiser and the
+ * integrator; elsewhere read them by name with dragParamsOf.
+ */
 export const DRAG_PARAMETER_NAMES = ['x0M', 'y0M', 'launchSpeedMps', 'launchAngleRad', 'dragK_perM'] as const;
+export type DragParameterName = (typeof DRAG_PARAMETER_NAMES)[number];
+export type DragParams = Record<DragParameterName, number>;
+/** Index of each parameter in the vector. */
+export const DRAG_PARAM: { readonly [K in DragParameterName]: number } = { x0M: 0, y0M: 1, launchSpeedMps: 2, launchAngleRad: 3, dragK_perM: 4 };
+
+/** A parameter vector (or its standard errors) as a named record. */
+export function dragParamsOf(p: ArrayLike<number>): DragParams {
+  return {
+    x0M: p[DRAG_PARAM.x0M],
+    y0M: p[DRAG_PARAM.y0M],
+    launchSpeedMps: p[DRAG_PARAM.launchSpeedMps],
+    launchAngleRad: p[DRAG_PARAM.launchAngleRad],
+    dragK_perM: p[DRAG_PARAM.dragK_perM],
+  };
+}
+
+/** The record back as a vector, in DRAG_PARAMETER_NAMES order. */
+export function dragParamVector(d: DragParams): number[] {
+  return DRAG_PARAMETER_NAMES.map((name) => d[name]);
+}
 
 export interface DragFitOptions {
   gravityMps2?: number;
-  /** Start [x0, y0, vx, vy], normally from the drag-free fit. */
-  startState: [number, number, number, number];
+  /** Start state [x0, y0, vx, vy] (flight-state order), normally the drag-free fit's. */
+  startState: readonly [number, number, number, number];
   /** A plausible k for this body (from a handbook Cd); sets the step and scale for k near zero. */
   typicalK_perM: number;
 }
@@ -30,7 +56,9 @@ export interface DragFit {
 }
 
 export function launchFromParams(p: ArrayLike<number>): LaunchState {
-  return { xM: p[0], yM: p[1], vxMps: p[2] * Math.cos(p[3]), vyMps: p[2] * Math.sin(p[3]) };
+  const speed = p[DRAG_PARAM.launchSpeedMps];
+  const angle = p[DRAG_PARAM.launchAngleRad];
+  return { xM: p[DRAG_PARAM.x0M], yM: p[DRAG_PARAM.y0M], vxMps: speed * Math.cos(angle), vyMps: speed * Math.sin(angle) };
 }
 
 const CBRT_EPS = Math.cbrt(Number.EPSILON);
@@ -43,7 +71,7 @@ export function fitQuadraticDrag(marks: FitMark[], options: DragFitOptions): Dra
   const sampler = new PositionSampler(times);
   const xs = new Float64Array(n);
   const ys = new Float64Array(n);
-  const model = (p: ArrayLike<number>): FlightModel => ({ dragK_perM: p[4], gravityMps2: g });
+  const model = (p: ArrayLike<number>): FlightModel => ({ dragK_perM: p[DRAG_PARAM.dragK_perM], gravityMps2: g });
 
   const observations = new Float64Array(2 * n);
   for (let i = 0; i < n; i++) { observations[i] = marks[i].xM; observations[n + i] = marks[i].yM; }
@@ -55,9 +83,13 @@ export function fitQuadraticDrag(marks: FitMark[], options: DragFitOptions): Dra
   const speed0 = Math.hypot(svx, svy);
   let extent = 0;
   for (const m of marks) extent = Math.max(extent, Math.abs(m.xM - sx0), Math.abs(m.yM - sy0));
-  const typical = Float64Array.from([
-    Math.max(extent, 1e-3), Math.max(extent, 1e-3), Math.max(speed0, 1e-3), 0.1, Math.abs(options.typicalK_perM) || 1e-3,
-  ]);
+  const typical = Float64Array.from(dragParamVector({
+    x0M: Math.max(extent, 1e-3),
+    y0M: Math.max(extent, 1e-3),
+    launchSpeedMps: Math.max(speed0, 1e-3),
+    launchAngleRad: 0.1,
+    dragK_perM: Math.abs(options.typicalK_perM) || 1e-3,
+  }));
 
   const write = (out: Float64Array) => {
     for (let i = 0; i < n; i++) { out[i] = xs[i]; out[n + i] = ys[i]; }
@@ -108,7 +140,7 @@ export function fitQuadraticDrag(marks: FitMark[], options: DragFitOptions): Dra
       weights,
       model: evaluate,
       jacobian,
-      start: [sx0, sy0, speed0, Math.atan2(svy, svx), 0],
+      start: dragParamVector({ x0M: sx0, y0M: sy0, launchSpeedMps: speed0, launchAngleRad: Math.atan2(svy, svx), dragK_perM: 0 }),
       typicalMagnitude: typical,
     },
     { maxIterations: 400, burstIterations: 3, rssRelTol: 1e-12, paramRelTol: 1e-9 },

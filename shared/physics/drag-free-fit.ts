@@ -10,7 +10,7 @@ import type { DragFreeFit, Estimate, FitMark } from './types';
 
 export interface DragFreeDetail {
   result: DragFreeFit;
-  /** [x0, y0, vx, vy] at tRef, g fixed. */
+  /** Launch state at tRef, g fixed, in flight-state order [x0, y0, vx, vy] (the drag fit's start). */
   state: [number, number, number, number];
   rss: number;
   residualsX: number[];
@@ -39,6 +39,10 @@ function weightsOf(marks: FitMark[]): number[] | undefined {
 export function fitDragFree(marks: FitMark[], gravityMps2 = STANDARD_GRAVITY_MPS2, tRefS = marks[0].tS): DragFreeDetail {
   const n = marks.length;
   const w = weightsOf(marks);
+  // Design-matrix columns (not a state vector): x0, vx on the x rows, y0, vy on
+  // the y rows. Reordering them changes the solver's rounding, and with it the
+  // last bits of every fit that starts from here, so they stay in this order.
+  const COL = { x0: 0, vx: 1, y0: 2, vy: 3 } as const;
   const design: number[][] = [];
   const b: number[] = [];
   for (const m of marks) { design.push([1, m.tS - tRefS, 0, 0]); b.push(m.xM); }
@@ -48,9 +52,10 @@ export function fitDragFree(marks: FitMark[], gravityMps2 = STANDARD_GRAVITY_MPS
     b.push(m.yM + 0.5 * gravityMps2 * tau * tau);
   }
   const fit = linearLeastSquares(design, b, w);
-  const [x0, vx, y0, vy] = fit.params;
+  const p = fit.params;
+  const [x0, vx, y0, vy] = [p[COL.x0], p[COL.vx], p[COL.y0], p[COL.vy]];
   const c = fit.covariance;
-  const sa = speedAndAngle(vx, vy, [[c[1][1], c[1][3]], [c[3][1], c[3][3]]]);
+  const sa = speedAndAngle(vx, vy, [[c[COL.vx][COL.vx], c[COL.vx][COL.vy]], [c[COL.vy][COL.vx], c[COL.vy][COL.vy]]]);
 
   // Free-g variant: one more column, -tau^2/2 on the y rows.
   const designG = design.map((row, i) => [...row, i < n ? 0 : -0.5 * (marks[i - n].tS - tRefS) ** 2]);
@@ -59,12 +64,13 @@ export function fitDragFree(marks: FitMark[], gravityMps2 = STANDARD_GRAVITY_MPS
 
   const dof = fit.dof;
   const se = (i: number) => Math.sqrt(c[i][i]);
-  const gEst: Estimate = estimate(fitG.params[4], Math.sqrt(fitG.covariance[4][4]), fitG.dof);
+  const G = 4; // the free-g column
+  const gEst: Estimate = estimate(fitG.params[G], Math.sqrt(fitG.covariance[G][G]), fitG.dof);
   const rmsResidualM = Math.sqrt(fit.residuals.reduce((a, r) => a + r * r, 0) / fit.residuals.length);
   return {
     result: {
-      x0M: estimate(x0, se(0), dof),
-      y0M: estimate(y0, se(2), dof),
+      x0M: estimate(x0, se(COL.x0), dof),
+      y0M: estimate(y0, se(COL.y0), dof),
       launchSpeedMps: estimate(sa.speed, sa.speedSe, dof),
       launchAngleDeg: estimate(sa.angle * RAD_TO_DEG, sa.angleSe * RAD_TO_DEG, dof),
       rmsResidualM,

@@ -7,7 +7,7 @@
 // the forward integrator (which needs tEnd > t0) serves both directions.
 import { flightConstants, flightRhs } from './flight';
 import { integrateDp45 } from './dp45';
-import { launchFromParams } from './drag-fit';
+import { DRAG_PARAM, launchFromParams } from './drag-fit';
 
 export interface MuzzleCrossing {
   speedMps: number;
@@ -20,10 +20,10 @@ const TOL = { rtol: 1e-12, atol: 1e-12 };
 /** Give up beyond this: a muzzle more than this far back in time is not part of the same shot. */
 const MAX_EXTRAPOLATION_S = 10;
 
-/** Crossing of x = muzzleXM for fit parameters [x0, y0, speed, angleRad, k]; null if never reached. */
+/** Crossing of x = muzzleXM for a drag-fit parameter vector (DRAG_PARAMETER_NAMES order); null if never reached. */
 export function muzzleCrossing(params: ArrayLike<number>, gravityMps2: number, muzzleXM: number): MuzzleCrossing | null {
   const l = launchFromParams(params);
-  const k = params[4];
+  const k = params[DRAG_PARAM.dragK_perM];
   const backwards = (muzzleXM - l.xM) * l.vxMps < 0;
   if (muzzleXM === l.xM) return { speedMps: Math.hypot(l.vxMps, l.vyMps), dtS: 0, yM: l.yM };
   const sign = backwards ? -1 : 1;
@@ -33,7 +33,8 @@ export function muzzleCrossing(params: ArrayLike<number>, gravityMps2: number, m
     { fn: (_t, s) => s[0] - muzzleXM, direction: 0 }, undefined, c,
   );
   if (!run.eventFound) return null;
-  return { speedMps: Math.hypot(run.yEnd[2], run.yEnd[3]), dtS: sign * run.tEnd, yM: run.yEnd[1] };
+  const [, yM, vx, vy] = run.yEnd; // flight state order: x, y, vx, vy
+  return { speedMps: Math.hypot(vx, vy), dtS: sign * run.tEnd, yM };
 }
 
 /** Gradient of the muzzle speed with respect to the fit parameters, by central differences. */

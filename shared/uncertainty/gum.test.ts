@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { buildCalibrationTransform } from '../geometry/calibration-transform';
 import { scaleWithUncertainty } from '../geometry/scale-uncertainty';
-import { scaleRelativeUncertainty } from '../physics/fit-shot';
+import { scaleRelativeUncertainty } from '../physics/fit-stages/uncertainty-budget';
 import { rectangularStdUncertainty } from './gum';
 
 // GUM, JCGM 100:2008 §4.3.7: a quantity known only to lie within ±a, all values

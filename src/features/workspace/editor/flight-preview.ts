@@ -2,7 +2,7 @@
 // physics core to the marks so far and draw them on the frame, with where the
 // projectile should be on the next frame. A preview only: the real fit (with
 // the projectile's mass, size and air) is run and reviewed elsewhere.
-import { fitQuadraticDrag, launchFromParams } from '@shared/physics/drag-fit';
+import { DRAG_PARAM, fitQuadraticDrag, launchFromParams } from '@shared/physics/drag-fit';
 import { fitDragFree } from '@shared/physics/drag-free-fit';
 import { simulateTrajectory } from '@shared/physics/flight';
 import { STANDARD_GRAVITY_MPS2 } from '@shared/physics/constants';
@@ -50,7 +50,7 @@ export function flightPreview(marks: FitMark[], nextTS: number, samples = 48): F
     const fit = fitQuadraticDrag(marks, { startState: free.state, typicalK_perM: TYPICAL_K_PER_M });
     if (fit.fit.converged && fit.fit.params.every(Number.isFinite)) {
       const p = fit.fit.params;
-      const run = simulateTrajectory({ dragK_perM: p[4] }, launchFromParams(p), { timesS: [...taus, nextTS - t0].filter((t, i, a) => i === 0 || t > a[i - 1]) });
+      const run = simulateTrajectory({ dragK_perM: p[DRAG_PARAM.dragK_perM] }, launchFromParams(p), { timesS: [...taus, nextTS - t0].filter((t, i, a) => i === 0 || t > a[i - 1]) });
       const points = run.points.map((q) => ({ tS: t0 + q.tS, xM: q.xM, yM: q.yM }));
       const nextPoint = points.find((q) => Math.abs(q.tS - nextTS) < 1e-12) ?? points[points.length - 1];
       drag = { path: points.filter((q) => q.tS <= tEnd + 1e-12), next: nextPoint, dragK_perM: p[4] };
