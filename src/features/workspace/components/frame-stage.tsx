@@ -9,6 +9,7 @@ import { fitToWindow, panTransition, screenToImage, wheelZoomFactor, zoomAtCurso
 import { useEditor } from '../hooks/use-editor';
 import { CalibrationOverlay } from './calibration-overlay';
 import { Loupe } from './loupe';
+import { MarkNotesOverlay, type MarkNote } from './mark-notes-overlay';
 import { MarksOverlay } from './marks-overlay';
 import { PreviewOverlay } from './preview-overlay';
 import { recordFrameDrawn } from './frame-timings';
@@ -22,6 +23,8 @@ interface FrameStageProps {
   spaceHeld: MutableRefObject<boolean>;
   /** Bumped to ask for fit-to-window again (the "0" key). */
   fitRequest: number;
+  /** Words beside marks: the automatic marker's confidence, marks off the preview curve. */
+  notes?: MarkNote[];
 }
 
 /**
@@ -29,7 +32,7 @@ interface FrameStageProps {
  * (redrawn when stepping) and the overlay (marks, calibration, curves, loupe),
  * so stepping repaints one bitmap and the overlay stays cheap.
  */
-export function FrameStage({ editor, frameCache, imageSize, transform, preview, spaceHeld, fitRequest }: FrameStageProps) {
+export function FrameStage({ editor, frameCache, imageSize, transform, preview, spaceHeld, fitRequest, notes }: FrameStageProps) {
   const box = useRef<HTMLDivElement>(null);
   const frameLayer = useRef<Konva.Layer>(null);
   const [size, setSize] = useState({ width: 0, height: 0 });
@@ -186,6 +189,7 @@ export function FrameStage({ editor, frameCache, imageSize, transform, preview, 
             <CalibrationOverlay draft={draft} view={view} activeTool={activeTool} toolStates={toolStates} />
             <PreviewOverlay preview={preview} transform={transform} view={view} />
             <MarksOverlay marks={marks} frameNumber={frameNumber} view={view} dragging={toolStates.place} />
+            {notes && notes.length > 0 && <MarkNotesOverlay notes={notes} view={view} />}
             {showLoupe && shown && pointer && pointerImage && <Loupe image={shown.image} screen={pointer} point={pointerImage} zoom={view.zoom} viewport={size} />}
           </Layer>
         </Stage>

@@ -324,7 +324,9 @@ export function createEditor(options: EditorOptions = {}) {
     moveMark(trackId: string, frameNumber: number, to: Point) {
       const before = markAt(state, trackId, frameNumber);
       if (!before || !state.permissions.canMark) return;
-      commit({ kind: 'mark', trackId, frameNumber, before, after: { ...before, uPx: to.u, vPx: to.v, placedUPx: to.u, placedVPx: to.v, snapped: false } });
+      // Moved (or accepted where it is) by a person: the mark is theirs now, as the server will record it.
+      const after: EditorMark = { ...before, uPx: to.u, vPx: to.v, placedUPx: to.u, placedVPx: to.v, snapped: false, source: 'hand', confidence: null, lowConfidenceReason: null };
+      commit({ kind: 'mark', trackId, frameNumber, before, after });
     },
 
     deleteMark(trackId: string, frameNumber: number) {

@@ -3,6 +3,7 @@
 // top-left corner of the top-left pixel.
 
 import type { PixelPoint } from '@shared/geometry/points';
+import type { MarkSource } from '@shared/schemas/auto-mark';
 import type { Downrange, LevelInput, PlaneCorrectionInput, ScaleReference, TrackKind } from '@shared/schemas/marking';
 
 /** The editor's short name for the one pixel point type. */
@@ -25,6 +26,11 @@ export interface EditorMark {
   placedVPx: number;
   /** True when the sub-pixel snap moved the click onto the projectile's centroid. */
   snapped: boolean;
+  /** Who placed it, as the server says ('auto': the automatic marker); absent on a mark this person just placed. */
+  source?: MarkSource;
+  /** The automatic marker's confidence, 0 … 1; null or absent for a person's mark. */
+  confidence?: number | null;
+  lowConfidenceReason?: string | null;
 }
 
 export interface FrameInfo {

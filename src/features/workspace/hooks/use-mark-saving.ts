@@ -32,7 +32,18 @@ export interface MarkSaving {
 }
 
 export function apiMarkToEditor(trackId: string, m: Mark): EditorMark {
-  return { trackId, frameNumber: m.frameNumber, uPx: m.uPx, vPx: m.vPx, placedUPx: m.placedUPx, placedVPx: m.placedVPx, snapped: m.snapped };
+  return {
+    trackId,
+    frameNumber: m.frameNumber,
+    uPx: m.uPx,
+    vPx: m.vPx,
+    placedUPx: m.placedUPx,
+    placedVPx: m.placedVPx,
+    snapped: m.snapped,
+    source: m.source,
+    confidence: m.confidence,
+    lowConfidenceReason: m.lowConfidenceReason,
+  };
 }
 
 export function useMarkSaving(teamId: string, editor: Editor): MarkSaving {
