@@ -7,15 +7,19 @@ import { ProgressBar } from '@/components/ui/progress-bar';
 import { confidenceWords } from '../editor/review-pass';
 import type { AutoMarking } from '../hooks/use-auto-mark';
 import type { ReviewPass } from '../hooks/use-review-pass';
+import { ReviewThresholdForm } from './review-threshold-form';
 
 interface AutoMarkPanelProps {
+  teamId: string;
   auto: AutoMarking;
   review: ReviewPass;
   threshold: number;
+  /** May change the team's review threshold (those who run fits). */
+  canSetThreshold: boolean;
 }
 
 /** Start automatic marking, watch it work, then step through the frames it was unsure about. */
-export function AutoMarkPanel({ auto, review, threshold }: AutoMarkPanelProps) {
+export function AutoMarkPanel({ teamId, auto, review, threshold, canSetThreshold }: AutoMarkPanelProps) {
   const run = auto.run;
   const toCheck = review.frames.length;
   return (
@@ -98,6 +102,7 @@ export function AutoMarkPanel({ auto, review, threshold }: AutoMarkPanelProps) {
             </div>
           </div>
         )}
+        {canSetThreshold && <ReviewThresholdForm key={threshold} teamId={teamId} threshold={threshold} />}
       </div>
     </Card>
   );

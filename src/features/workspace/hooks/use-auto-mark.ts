@@ -2,6 +2,7 @@
 // the person's mark on the shown frame as a seed, when there is one), follow
 // it, and bring its marks into the editor as they are written, so they appear
 // live. A run already at work when the page opens is picked up again.
+import { useQueryClient } from '@tanstack/react-query';
 import { useCallback, useEffect, useRef, useState } from 'react';
 import type { AutoMarkBody } from '@shared/schemas/auto-mark';
 import { useCancelAutoMarkRun } from '@/api/auto-mark/cancel-auto-mark-run';
@@ -9,6 +10,7 @@ import { isRunAtWork, useAutoMarkRun } from '@/api/auto-mark/get-auto-mark-run';
 import { useTrackAutoMarkRuns } from '@/api/auto-mark/list-track-auto-mark-runs';
 import { useStartAutoMark } from '@/api/auto-mark/start-auto-mark';
 import { fetchMarks } from '@/api/marks/list-marks';
+import { markKeys } from '@/api/query-keys';
 import type { Editor } from '../editor/editor-store';
 import { useEditor } from './use-editor';
 import { apiMarkToEditor, type MarkSaving } from './use-mark-saving';
@@ -18,6 +20,7 @@ export type AutoMarking = ReturnType<typeof useAutoMark>;
 export function useAutoMark(teamId: string, editor: Editor, saving: MarkSaving) {
   const trackId = useEditor(editor, (s) => s.activeTrackId);
   const canMark = useEditor(editor, (s) => s.permissions.canMark);
+  const client = useQueryClient();
   const runs = useTrackAutoMarkRuns(teamId, trackId);
   const [picked, setPicked] = useState<{ trackId: string; runId: string } | null>(null);
   const runId = picked && picked.trackId === trackId ? picked.runId : null;
@@ -47,12 +50,13 @@ export function useAutoMark(teamId: string, editor: Editor, saving: MarkSaving) 
     void fetchMarks(teamId, r.trackId).then((now) => {
       if (stale) return;
       seed(r.trackId, now.marks);
+      client.setQueryData(markKeys.ofTrack(teamId, r.trackId), now);
       editor.replaceTrackMarks(r.trackId, now.marks.map((m) => apiMarkToEditor(r.trackId, m)));
     });
     return () => {
       stale = true;
     };
-  }, [run.data, pendingWrites, seed, editor, teamId]);
+  }, [run.data, pendingWrites, seed, editor, teamId, client]);
 
   const atWork = !!run.data && isRunAtWork(run.data.state);
 
