@@ -10,21 +10,11 @@ import { exportMarksUrl } from '@/api/marks/export-marks';
 import { fetchMarks } from '@/api/marks/list-marks';
 import { useImportMarks } from '@/api/marks/import-marks';
 import type { Editor } from '../editor/editor-store';
-import { marksOfTrack } from '../editor/editor-store';
 import { useEditor } from '../hooks/use-editor';
 import { apiMarkToEditor, type MarkSaving } from '../hooks/use-mark-saving';
+import { useWorldMarks, type WorldMark } from '../hooks/use-world-marks';
 
-export interface LedgerRow {
-  frameNumber: number;
-  tS: number | null;
-  uPx: number;
-  vPx: number;
-  xM: number | null;
-  yM: number | null;
-  snapped: boolean;
-}
-
-const col = dataTableColumns<LedgerRow>();
+const col = dataTableColumns<WorldMark>();
 
 interface MarksLedgerProps {
   editor: Editor;
@@ -35,20 +25,9 @@ interface MarksLedgerProps {
 
 /** Every mark of the active track with its time, pixel and world position; CSV in and out. */
 export function MarksLedger({ editor, teamId, transform, saving }: MarksLedgerProps) {
-  const activeTrackId = useEditor(editor, (s) => s.activeTrackId);
-  const trackMarks = useEditor(editor, (s) => (activeTrackId ? s.marksByTrack[activeTrackId] : undefined));
-  const frames = useEditor(editor, (s) => s.frames);
+  const { trackId: activeTrackId, marks: rows } = useWorldMarks(editor, teamId, transform);
   const canMark = useEditor(editor, (s) => s.permissions.canMark);
   const track = useEditor(editor, (s) => s.tracks.find((t) => t.id === activeTrackId));
-
-  const rows = useMemo<LedgerRow[]>(() => {
-    const timeOf = new Map(frames.map((f) => [f.frameNumber, f.tS]));
-    return marksOfTrack(editor.getState(), activeTrackId).map((m) => {
-      const w = transform ? transform.imageToWorld({ u: m.uPx, v: m.vPx }) : null;
-      return { frameNumber: m.frameNumber, tS: timeOf.get(m.frameNumber) ?? null, uPx: m.uPx, vPx: m.vPx, xM: w?.x ?? null, yM: w?.y ?? null, snapped: m.snapped };
-    });
-    // trackMarks is the dependency that changes when marks do.
-  }, [editor, activeTrackId, trackMarks, frames, transform]); // eslint-disable-line react-hooks/exhaustive-deps
 
   const columns = useMemo(
     () =>

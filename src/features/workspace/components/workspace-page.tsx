@@ -6,7 +6,6 @@ import { LoadingBlock } from '@/components/ui/spinner';
 import { ProgressBar } from '@/components/ui/progress-bar';
 import type { FitMark } from '@shared/physics/types';
 import { transformOfDraft } from '../editor/calibration-geometry';
-import { marksOfTrack } from '../editor/editor-store';
 import { zoomAtCursor } from '../editor/tools/view-behaviour';
 import type { TrackKind } from '../editor/types';
 import { useEditor } from '../hooks/use-editor';
@@ -15,6 +14,7 @@ import { useMarkSaving } from '../hooks/use-mark-saving';
 import { useWorkspaceData } from '../hooks/use-workspace-data';
 import { useWorkspaceEditor } from '../hooks/use-workspace-editor';
 import { useWorkspaceKeys } from '../hooks/use-workspace-keys';
+import { useWorldMarks } from '../hooks/use-world-marks';
 import { CalibrationCard } from './calibration-card';
 import { FrameScrubber } from './frame-scrubber';
 import { FrameStage } from './frame-stage';
@@ -55,24 +55,15 @@ function Workspace({ teamId, clipId }: { teamId: string; clipId: string }) {
   const transformResult = useMemo(() => transformOfDraft(draft), [draft]);
   const transform = transformResult?.ok ? transformResult.transform : null;
 
-  const activeTrackId = useEditor(editor, (s) => s.activeTrackId);
-  const trackMarks = useEditor(editor, (s) => (activeTrackId ? s.marksByTrack[activeTrackId] : undefined));
-  const frames = useEditor(editor, (s) => s.frames);
-  const { worldMarks, nextTS, markCount } = useMemo(() => {
-    const marks = marksOfTrack(editor.getState(), activeTrackId);
-    if (!transform || marks.length === 0) return { worldMarks: null, nextTS: null, markCount: marks.length };
-    const timeOf = new Map(frames.map((f, i) => [f.frameNumber, i]));
+  const placed = useWorldMarks(editor, teamId, transform);
+  const markCount = placed.marks.length;
+  const worldMarks = useMemo(() => {
+    if (!transform || markCount === 0) return null;
     const world: FitMark[] = [];
-    for (const m of marks) {
-      const i = timeOf.get(m.frameNumber);
-      if (i === undefined) continue;
-      const w = transform.imageToWorld({ u: m.uPx, v: m.vPx });
-      world.push({ tS: frames[i].tS, xM: w.x, yM: w.y });
-    }
-    const lastIndex = timeOf.get(marks[marks.length - 1].frameNumber);
-    const after = lastIndex !== undefined ? frames[lastIndex + 1] : undefined;
-    return { worldMarks: world, nextTS: after?.tS ?? null, markCount: marks.length };
-  }, [editor, activeTrackId, trackMarks, frames, transform]); // eslint-disable-line react-hooks/exhaustive-deps
+    for (const m of placed.marks) if (m.tS !== null && m.xM !== null && m.yM !== null) world.push({ tS: m.tS, xM: m.xM, yM: m.yM });
+    return world;
+  }, [placed, transform, markCount]);
+  const nextTS = worldMarks ? placed.nextTS : null;
   const preview = useFlightPreview(worldMarks, nextTS);
 
   const addTrack = (kind: TrackKind) => {
