@@ -1,3 +1,4 @@
+import { randomUUID } from 'node:crypto';
 import { existsSync } from 'node:fs';
 import path from 'node:path';
 import connectPgSimple from 'connect-pg-simple';
@@ -5,6 +6,9 @@ import express, { type RequestHandler } from 'express';
 import session from 'express-session';
 import helmet from 'helmet';
 import type { AppDeps } from './app-deps';
+import { sessionGuard } from './auth/session-guard';
+import { signInGuard } from './auth/sign-in-guard';
+import { SignInLimiter } from './auth/sign-in-limits';
 import { buildOpenApi } from './http/openapi';
 import { HttpProblem, apiNotFound, problemHandler, sendProblem } from './http/problem';
 import { RouteTable } from './http/route-table';
@@ -25,8 +29,14 @@ const requireCsrfHeader: RequestHandler = (req, res, next) => {
 export function createApp(deps: AppDeps) {
   const app = express();
   app.locals.deps = deps;
-  app.set('trust proxy', 'loopback');
+  // Off unless TRUST_PROXY says otherwise: then no caller can choose req.ip (the sign-in limiter's key) with a header.
+  app.set('trust proxy', deps.config.trustProxy);
   app.disable('x-powered-by');
+  app.use((_req, res, next) => {
+    res.locals.requestId = randomUUID();
+    res.set('X-Request-Id', res.locals.requestId);
+    next();
+  });
   app.use(
     helmet({
       contentSecurityPolicy: {
@@ -49,9 +59,11 @@ export function createApp(deps: AppDeps) {
       resave: false,
       saveUninitialized: false,
       rolling: true,
-      cookie: { httpOnly: true, sameSite: 'lax', secure: 'auto', maxAge: 7 * 24 * 3600 * 1000 },
+      // The idle timeout: every answer moves the cookie's expiry on (rolling); sessionGuard adds the absolute limit.
+      cookie: { httpOnly: true, sameSite: 'lax', secure: 'auto', maxAge: deps.config.sessionIdleMs },
     }),
   );
+  app.use('/api', sessionGuard(deps.db, deps.config.sessionAbsoluteMs));
 
   const api = new RouteTable();
   registerAllRoutes(api, deps);
@@ -61,7 +73,10 @@ export function createApp(deps: AppDeps) {
   app.get('/api/openapi.json', (_req, res) => {
     res.json(openApi);
   });
-  app.use('/api', requireCsrfHeader, express.json({ limit: '1mb' }));
+  app.use('/api', requireCsrfHeader, express.json({ limit: deps.config.jsonLimitBytes }));
+  const signInLimiter = new SignInLimiter({ windowMs: 15 * 60 * 1000, accountLimit: deps.config.signInAccountLimit, addressLimit: deps.config.signInLimitPerWindow });
+  app.locals.signInLimiter = signInLimiter;
+  app.post('/api/auth/sign-in', signInGuard(signInLimiter));
   app.use(api.router);
   app.use('/api', apiNotFound);
 

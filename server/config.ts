@@ -14,7 +14,28 @@ export interface Config {
   mailFrom: string;
   storageDir: string;
   uploadLimitBytes: number;
+  /** Failed sign-ins per address in 15 minutes (high enough for a team behind one NAT). */
   signInLimitPerWindow: number;
+  /** Failed sign-ins per account in 15 minutes before the account locks (it unlocks by itself). */
+  signInAccountLimit: number;
+  /**
+   * Express 'trust proxy': false (default) uses the socket's address, so a forwarded
+   * header cannot choose the rate limiter's key; set TRUST_PROXY to a hop count, a
+   * subnet list or 'loopback' when a reverse proxy sits in front.
+   */
+  trustProxy: boolean | number | string;
+  /** Seed the demo team (never in production or with ARCBENCH_DEMO=off). */
+  demo: boolean;
+  /** A session ends after this much inactivity (rolling)... */
+  sessionIdleMs: number;
+  /** ...and in any case this long after sign-in. */
+  sessionAbsoluteMs: number;
+  /** Largest JSON request body in bytes (413 above). */
+  jsonLimitBytes: number;
+  /** Cap on frames × width × height of one extraction (decoded pixels). */
+  maxDecodedPixels: number;
+  /** Bytes of clips and frames one team may keep. */
+  teamStorageQuotaBytes: number;
   /** Start the job worker inside the server process. */
   inProcessWorker: boolean;
   jpegQuality: number;
@@ -87,12 +108,23 @@ function int(value: string | undefined, fallback: number): number {
   return Number.isFinite(n) ? n : fallback;
 }
 
+/** TRUST_PROXY: unset/false/off → false; true; a hop count; or Express's names and subnets ('loopback', '10.0.0.0/8, fc00::/7'). */
+export function trustProxySetting(value: string | undefined): boolean | number | string {
+  const v = (value ?? '').trim();
+  if (v === '' || /^(false|off|no|0)$/i.test(v)) return false;
+  if (/^(true|on|yes)$/i.test(v)) return true;
+  if (/^\d+$/.test(v)) return Number(v);
+  return v;
+}
+
 export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
   const databaseUrl = env.DATABASE_URL;
   if (!databaseUrl) throw new Error('DATABASE_URL is not set (npm start and npm test set it for you).');
   const host = env.HOST ?? '127.0.0.1';
   const port = int(env.PORT, 5180);
-  const production = env.NODE_ENV === 'production';
+  // Production mode: NODE_ENV=production, or ARCBENCH_DEMO=off (a real installation started with npm start).
+  const production = env.NODE_ENV === 'production' || /^(off|false|no|0)$/i.test(env.ARCBENCH_DEMO ?? '');
+  const demo = !production;
   const sessionSecret = env.SESSION_SECRET ?? '';
   if (production && sessionSecret.length < 32) throw new Error('SESSION_SECRET must be at least 32 characters in production.');
   return {
@@ -106,7 +138,16 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
     mailFrom: env.MAIL_FROM ?? 'Arcbench <no-reply@arcbench.invalid>',
     storageDir: path.resolve(env.STORAGE_DIR ?? '.data/storage'),
     uploadLimitBytes: int(env.UPLOAD_LIMIT_BYTES, 2 * 1024 ** 3),
-    signInLimitPerWindow: int(env.SIGN_IN_LIMIT, 10),
+    signInLimitPerWindow: int(env.SIGN_IN_LIMIT, 100),
+    signInAccountLimit: int(env.SIGN_IN_ACCOUNT_LIMIT, 10),
+    trustProxy: trustProxySetting(env.TRUST_PROXY),
+    demo,
+    sessionIdleMs: int(env.SESSION_IDLE_MINUTES, production ? 120 : 7 * 24 * 60) * 60_000,
+    sessionAbsoluteMs: int(env.SESSION_MAX_HOURS, production ? 12 : 7 * 24) * 3_600_000,
+    jsonLimitBytes: int(env.JSON_LIMIT_BYTES, 1024 * 1024),
+    // 2 gigapixels: 1000 frames of 1920×1080, or 2000 of 1280×720 (a long high-speed shot).
+    maxDecodedPixels: int(env.MAX_DECODED_PIXELS, 2_000_000_000),
+    teamStorageQuotaBytes: int(env.TEAM_STORAGE_QUOTA_BYTES, 50 * 1024 ** 3),
     inProcessWorker: env.IN_PROCESS_WORKER !== 'false',
     jpegQuality: int(env.JPEG_QUALITY, 90),
     jobSchema: env.JOB_SCHEMA || 'pgboss',

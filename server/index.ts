@@ -9,11 +9,20 @@ import { startFakeSmtp } from './mail/fake-smtp';
 import { startBackground, type Background } from './background';
 import { createStorage, describeStorage } from './storage/create-storage';
 import { prepareScratch } from './storage/scratch';
+import { sweepAbandoned } from './storage/sweep-abandoned';
+import { primeFfmpegProbe } from './health/system-status';
 
 const config = loadConfig();
 await ensureDatabase(config.databaseUrl);
 const database = connect(config.databaseUrl);
 await applyMigrations(database.db);
+
+// What a killed predecessor left behind: half-received uploads, frames never moved into the store.
+const swept = await sweepAbandoned({ storageDir: config.storageDir, db: database.db, staleSeconds: config.jobStaleSeconds });
+if (swept.partialUploads.length + swept.extractionFolders.length > 0) {
+  process.stdout.write(`[arcbench] Removed ${swept.partialUploads.length} unfinished upload(s) and ${swept.extractionFolders.length} abandoned frame folder(s) left by a stopped server\n`);
+}
+void primeFfmpegProbe();
 
 const fakeSmtp = config.smtpUrl ? null : await startFakeSmtp(database.db);
 const mailer = createMailer(config.smtpUrl ?? fakeSmtp!.url, config.mailFrom);

@@ -3,6 +3,10 @@ import type { Role } from '../../shared/roles';
 declare module 'express-session' {
   interface SessionData {
     userId: string;
+    /** When this sign-in began (ms since epoch): the absolute lifetime counts from here. */
+    signedInAt?: number;
+    /** The user's memberships and roles when the session id was last issued; a change issues a new id. */
+    roleStamp?: string;
   }
 }
 
@@ -12,6 +16,8 @@ declare global {
       user?: { id: string; email: string; displayName: string; notifyByEmail: boolean };
       team?: { id: string; name: string; role: Role };
       input?: unknown;
+      /** Set for every request (X-Request-Id); a 500's log line and answer name it. */
+      requestId?: string;
     }
   }
 }

@@ -52,7 +52,7 @@ function toProblem(err: unknown): HttpProblem {
   const e = err as BodyParserError;
   if (e?.type === 'entity.parse.failed') return badRequest('The request body is not valid JSON.');
   if (e?.type === 'entity.too.large') {
-    return new HttpProblem(400, 'Request body too large', `The request body is larger than the ${e.limit ?? ''} byte limit.`.replace('  ', ' '));
+    return new HttpProblem(413, 'Request body too large', `The request body is larger than the ${e.limit ?? ''} byte limit.`.replace('  ', ' '));
   }
   if (e?.type === 'encoding.unsupported' || e?.type === 'charset.unsupported') return badRequest('Unsupported body encoding.');
   if (typeof e?.status === 'number' && e.status >= 400 && e.status < 500) return new HttpProblem(e.status, 'Bad request', e.message);
@@ -75,10 +75,38 @@ export function sendProblem(res: Parameters<RequestHandler>[1], problem: HttpPro
     );
 }
 
+/**
+ * One log line for a 500 that carries no user input: error class, database
+ * error code, the message with quoted values removed and SQL cut off, and the
+ * top stack frames. Never the query's parameters, the body or the URL's query.
+ */
+export function describeErrorForLog(err: unknown): string {
+  const parts: string[] = [];
+  for (let e = err as { name?: string; code?: unknown; message?: unknown; cause?: unknown } | undefined, depth = 0; e && depth < 4; e = e.cause as typeof e, depth++) {
+    const firstLine = String(e.message ?? '').split('\n')[0];
+    const message = /^Failed query/i.test(firstLine)
+      ? 'Failed query (SQL and parameters not logged)'
+      : firstLine.replace(/"[^"]*"|'[^']*'|`[^`]*`/g, '…').replace(/\b\d{6,}\b/g, '…').slice(0, 200);
+    parts.push(`${e.name ?? 'Error'}${typeof e.code === 'string' ? ` [${e.code}]` : ''}: ${message}`);
+  }
+  const stack = String((err as Error)?.stack ?? '')
+    .split('\n')
+    .filter((l) => /^\s+at /.test(l))
+    .slice(0, 3)
+    .map((l) => l.trim())
+    .join(' | ');
+  return `${parts.join(' ← caused by ')}${stack ? ` (${stack})` : ''}`;
+}
+
 /** The one error middleware: everything becomes problem+json, never a stack trace. */
 export const problemHandler: ErrorRequestHandler = (err, req, res, _next) => {
-  const problem = toProblem(err);
-  if (problem.status >= 500) console.error('[api] unhandled error on', req.method, req.originalUrl, err);
+  let problem = toProblem(err);
+  if (problem.status >= 500) {
+    const requestId = String(res.locals.requestId ?? '-');
+    // The route pattern, not the URL: ids and query strings stay out of the log.
+    console.error(`[api] 500 on ${req.method} ${req.route?.path ?? req.baseUrl ?? ''} request ${requestId}: ${describeErrorForLog(err)}`);
+    problem = new HttpProblem(problem.status, problem.title, `${problem.detail} (request ${requestId})`, { ...problem.extra, requestId });
+  }
   if (res.headersSent) {
     res.end();
     return;

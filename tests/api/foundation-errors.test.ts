@@ -32,13 +32,14 @@ describe('API errors are problem+json', () => {
     expect(res.body.detail).toMatch(/not valid JSON/);
   });
 
-  it('oversized JSON → 400', async () => {
+  it('oversized JSON → 413', async () => {
     const res = await request(t.app)
       .post('/api/auth/sign-in')
       .set('X-Arcbench-Request', '1')
       .set('Content-Type', 'application/json')
       .send(JSON.stringify({ email: 'a@b.test', password: 'x'.repeat(2 * 1024 * 1024) }));
-    expectProblem(res, 400);
+    // RFC 9110 §15.5.14: 413 Content Too Large.
+    expectProblem(res, 413);
     expect(res.body.title).toMatch(/too large/i);
   });
 
