@@ -4,6 +4,7 @@
 import type { Db } from '../db/client';
 import { HttpProblem, badRequest } from '../http/problem';
 import { isStorageUnavailable, type Storage } from '../storage/storage';
+import { checkDecodedPixels, checkTeamQuota, type ExtractionLimits } from './extraction-limits';
 import { inspectClip, storageUnavailable, type ReceivedFile } from './intake';
 import { storeClip } from './store-clip';
 
@@ -14,6 +15,8 @@ export interface UploadRequest {
   inFrame?: number;
   outFrame?: number;
   createdBy: string | null;
+  /** The pixel cap and team quota (config); checked before the clip is recorded, so no frame is ever written. */
+  limits?: ExtractionLimits;
 }
 
 /** Returns the new clip's id (status 'queued'); throws problem+json errors for bad files and 503 when the store is down. */
@@ -32,6 +35,10 @@ export async function acceptUpload(db: Db, storage: Storage, file: ReceivedFile,
     const outFrame = r.outFrame ?? facts.frameCount - 1;
     if (outFrame > facts.frameCount - 1 || inFrame > outFrame) {
       throw badRequest(`The clip has ${facts.frameCount} frames (0–${facts.frameCount - 1}); inFrame ${inFrame} / outFrame ${outFrame} is outside it.`);
+    }
+    if (r.limits) {
+      checkDecodedPixels({ frames: outFrame - inFrame + 1, width: facts.probe.width, height: facts.probe.height, maxDecodedPixels: r.limits.maxDecodedPixels });
+      await checkTeamQuota(db, r.teamId, file.size, r.limits.teamStorageQuotaBytes);
     }
     const clipId = await storeClip(db, storage, {
       teamId: r.teamId,
