@@ -2,8 +2,9 @@ import { describe, expect, it } from 'vitest';
 import { sampleStandardDeviation } from 'simple-statistics';
 import { mulberry32, normalDeviates } from '../random/prng';
 import { rollFromLevelLine } from './calibration-transform';
+import { lensModelForFrame, undistort } from './lens-distortion';
 import {
-  DEG_PER_RAD, launchAngleSigmaFromRollDeg, levelLineRollSigmaRad, rotateWorldPoints, statedRollSigmaRad, worldPointSigmaFromRoll,
+  correctedLevelLineRollSigmaRad, DEG_PER_RAD, launchAngleSigmaFromRollDeg, levelLineRollSigmaRad, rotateWorldPoints, statedRollSigmaRad, worldPointSigmaFromRoll,
 } from './roll-uncertainty';
 
 describe('roll uncertainty of a clicked level line', () => {
@@ -25,6 +26,20 @@ describe('roll uncertainty of a clicked level line', () => {
       ) / DEG_PER_RAD);
     }
     expect(sampleStandardDeviation(rolls) / levelLineRollSigmaRad(p1, p2, sigma)).toBeCloseTo(1, 1);
+  });
+
+  it('through a correction: identity gives √2 σ / L; a correction that doubles lengths halves it; a lens that stretches the corners raises it', () => {
+    const p1 = { u: 300, v: 900 }, p2 = { u: 1600, v: 880 };
+    const plain = levelLineRollSigmaRad(p1, p2, 0.7);
+    expect(correctedLevelLineRollSigmaRad(p1, p2, 0.7, (p) => p)).toBeCloseTo(plain, 9);
+    expect(correctedLevelLineRollSigmaRad(p1, p2, 0.7, (p) => ({ u: 2 * p.u, v: 2 * p.v }))).toBeCloseTo(plain, 9);
+    // Barrel undistortion stretches the frame's edges: the same clicks, measured on
+    // corrected points that lie farther apart, still carry their frame-pixel σ, so the
+    // result stays above √2 σ / L_corrected.
+    const lens = lensModelForFrame(1920, 1080, { k1: -0.2, k2: 0.04 });
+    const corrected = correctedLevelLineRollSigmaRad(p1, p2, 0.7, (p) => undistort(lens, p));
+    const a = undistort(lens, p1), b = undistort(lens, p2);
+    expect(corrected).toBeGreaterThan(levelLineRollSigmaRad(a, b, 0.7) * 1.05);
   });
 
   it('a stated roll ±0.5° is a rectangular 0.5/√3° (GUM §4.3.7)', () => {

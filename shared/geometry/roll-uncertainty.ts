@@ -30,6 +30,40 @@ export function levelLineRollSigmaRad(p1: PixelPoint, p2: PixelPoint, endpointSi
   return (Math.SQRT2 * endpointSigmaPx) / lengthPx;
 }
 
+/**
+ * The same through a correction that bends or stretches the picture (lens,
+ * plane homography): the clicks' σ is in frame pixels, the roll is measured on
+ * the corrected points, so each click's σ is carried through the correction's
+ * local Jacobian (GUM eq. 10 with sensitivity coefficients by central differences).
+ */
+export function correctedLevelLineRollSigmaRad(
+  p1: PixelPoint, p2: PixelPoint, endpointSigmaPx: number, correct: (p: PixelPoint) => PixelPoint,
+): number {
+  levelLineRollSigmaRad(p1, p2, endpointSigmaPx);
+  const angle = (a: PixelPoint, b: PixelPoint) => {
+    const qa = correct(a), qb = correct(b);
+    return Math.atan2(-(qb.v - qa.v), qb.u - qa.u);
+  };
+  const base = angle(p1, p2);
+  const h = 1e-3;
+  let sum = 0;
+  for (const which of [0, 1]) {
+    for (const axis of ['u', 'v'] as const) {
+      const bump = (d: number) => {
+        const a = { ...p1 }, b = { ...p2 };
+        (which === 0 ? a : b)[axis] += d;
+        // Unwrap against the base angle so a line near ±180° differentiates smoothly.
+        let t = angle(a, b) - base;
+        t -= 2 * Math.PI * Math.round(t / (2 * Math.PI));
+        return t;
+      };
+      const d = (bump(h) - bump(-h)) / (2 * h);
+      sum += d * d;
+    }
+  }
+  return endpointSigmaPx * Math.sqrt(sum);
+}
+
 /** Standard uncertainty of a stated roll with a ± tolerance in degrees, radians. */
 export function statedRollSigmaRad(rollToleranceDeg: number): number {
   if (!(rollToleranceDeg >= 0 && rollToleranceDeg < 45)) {
