@@ -86,8 +86,13 @@ export async function autoMarkTrack(frames: FrameSource, options: AutoMarkOption
 
     // Re-measure the chain precisely (detection positions are coarse).
     const refined: TrackedMark[] = [];
-    for (const p of chain) {
-      const out = await measureAt(ctx, p.frameNumber, { u: p.u, v: p.v, gatePx: 2 + 0.3 * stepPx + ctx.diff.detectScale, speedPx: stepPx }, 0);
+    for (let i = 0; i < chain.length; i++) {
+      const p = chain[i];
+      const a = chain[Math.max(0, i - 1)];
+      const b = chain[Math.min(chain.length - 1, i + 1)];
+      const span = Math.max(1, b.frameNumber - a.frameNumber);
+      const motion = { du: (b.u - a.u) / span, dv: (b.v - a.v) / span };
+      const out = await measureAt(ctx, p.frameNumber, { u: p.u, v: p.v, gatePx: 2 + 0.3 * stepPx + ctx.diff.detectScale, speedPx: stepPx, ...motion }, 0);
       if (out.kind === 'mark') refined.push(out.mark);
     }
     if (refined.length < 3) return { marks: [], launchFrame: null, endReason: 'lost' };
@@ -148,7 +153,7 @@ async function findRestPosition(ctx: TrackContext, track: TrackedMark[], stepPx:
   const first = track[0].frameNumber;
   if (first - 2 < ctx.from) return null;
   const before = predictAt(track.map(asPoint), first - 1);
-  const look = { u: before.u, v: before.v, gatePx: stepPx + 3 * ctx.radiusPx + 2, speedPx: stepPx };
+  const look = { u: before.u, v: before.v, gatePx: stepPx + 3 * ctx.radiusPx + 2, speedPx: stepPx, du: 0, dv: 0 };
   const a = await measureAt(ctx, first - 2, look, 0);
   if (a.kind !== 'mark') return null;
   if (first - 3 < ctx.from) return { u: a.mark.uPx, v: a.mark.vPx };

@@ -13,6 +13,9 @@ export interface Blob {
   v: number;
   /** Pixels above threshold (full-resolution pixels). */
   area: number;
+  /** Bounding box, full-frame pixels. */
+  bboxLeft: number;
+  bboxTop: number;
   bboxWidth: number;
   bboxHeight: number;
   /** +1: darker than the background; -1: brighter. */
@@ -197,6 +200,8 @@ export class SceneDiff {
         u: (cx + 0.5) * s,
         v: (cy + 0.5) * s,
         area,
+        bboxLeft: st[i * 5] * s,
+        bboxTop: st[i * 5 + 1] * s,
         bboxWidth: bw * s,
         bboxHeight: bh * s,
         polarity: signed < 0 ? 1 : -1,
@@ -258,6 +263,8 @@ export class SceneDiff {
           u: rect.x + ce[i * 2] + 0.5,
           v: rect.y + ce[i * 2 + 1] + 0.5,
           area: st[i * 5 + 4],
+          bboxLeft: rect.x + bx,
+          bboxTop: rect.y + by,
           bboxWidth: bw,
           bboxHeight: bh,
           polarity,
@@ -288,7 +295,7 @@ export class SceneDiff {
    * toward the pixels where the backdrop happens to contrast more. The mask is
    * the component grown by 2 px, so the faint rim below threshold still counts.
    */
-  centroidOf(label: number): Centroid | null {
+  centroidOf(label: number, shape: { radiusPx: number; du: number; dv: number; blurPx: number }, start: { u: number; v: number }): Centroid | null {
     const cv = this.cv;
     const w = this.win;
     if (!w) return null;
@@ -312,24 +319,48 @@ export class SceneDiff {
       const peak = top[0].c;
       cv.dilate(mask, grown, this.kernel);
       const g = grown.data;
-      const wd = weights.data32F;
       const floor = Math.max(0.35 * peak, 3 * this.noise.raw);
+      const coverage = new Float32Array(n);
       let touches = false;
       for (let i = 0; i < n; i++) {
         if (!g[i]) continue;
         const full = Math.max(floor, polarity * (bg[i] - ballGray));
         const c = d[i] / full;
-        wd[i] = c < -0.3 ? -0.3 : c > 1.3 ? 1.3 : c;
+        coverage[i] = c < -0.3 ? -0.3 : c > 1.3 ? 1.3 : c;
         const x = i % rect.width;
         const y = (i - x) / rect.width;
         if ((x === 0 && rect.x === 0) || (y === 0 && rect.y === 0) || (x === rect.width - 1 && rect.x + rect.width === this.width) || (y === rect.height - 1 && rect.y + rect.height === this.height)) {
-          if (wd[i] > 0.2) touches = true;
+          if (coverage[i] > 0.2) touches = true;
         }
       }
-      const m = cv.moments(weights, false);
-      if (!(m.m00 > 0)) return null;
-      const cx = m.m10 / m.m00;
-      const cy = m.m01 / m.m00;
+      // Passes inside an ellipse (long along the motion, for blur): a component that grew into
+      // something next to the projectile (a post's edge, compression ringing in foliage) would
+      // pull a centre taken over the whole component; the ellipse cuts that off.
+      const speed = Math.hypot(shape.du, shape.dv);
+      const eu = speed > 0 ? shape.du / speed : 1;
+      const ev = speed > 0 ? shape.dv / speed : 0;
+      const across = 1.6 * shape.radiusPx + 2;
+      const along = across + 0.5 * shape.blurPx;
+      // First ellipse around the prediction (good to a pixel or so once tracking), then around each new centre.
+      let cx = start.u - rect.x - 0.5;
+      let cy = start.v - rect.y - 0.5;
+      let m: ReturnType<typeof cv.moments> | null = null;
+      const wd = weights.data32F;
+      for (let pass = 0; pass < 3; pass++) {
+        for (let i = 0; i < n; i++) {
+          if (!g[i]) continue;
+          const x = (i % rect.width) - cx;
+          const y = Math.floor(i / rect.width) - cy;
+          const a = (x * eu + y * ev) / along;
+          const b = (-x * ev + y * eu) / across;
+          wd[i] = a * a + b * b <= 1 ? coverage[i] : 0;
+        }
+        m = cv.moments(weights, false);
+        if (!(m.m00 > 0)) return null;
+        cx = m.m10 / m.m00;
+        cy = m.m01 / m.m00;
+      }
+      if (!m) return null;
       const mu20 = m.mu20 / m.m00;
       const mu02 = m.mu02 / m.m00;
       const mu11 = m.mu11 / m.m00;

@@ -57,7 +57,7 @@ function medianCoverage(history: TrackedMark[], near: number): number {
 }
 
 /** Measures the projectile at one frame, near a prediction. */
-export async function measureAt(ctx: TrackContext, frameNumber: number, pred: Pick<Prediction, 'u' | 'v' | 'gatePx' | 'speedPx'>, expectedCoverage: number): Promise<MeasureOutcome> {
+export async function measureAt(ctx: TrackContext, frameNumber: number, pred: Pick<Prediction, 'u' | 'v' | 'gatePx' | 'speedPx' | 'du' | 'dv'>, expectedCoverage: number): Promise<MeasureOutcome> {
   const { frame, gain } = await gainFor(ctx, frameNumber);
   ctx.diff.setFrame(frame, gain);
   const r = ctx.radiusPx;
@@ -65,12 +65,23 @@ export async function measureAt(ctx: TrackContext, frameNumber: number, pred: Pi
   const win = ctx.diff.measureWindow(pred.u, pred.v, half, ctx.polarity);
   if (!win) return { kind: 'none' };
   const minArea = Math.max(2, 0.15 * Math.PI * r * r);
-  const near = (b: Blob) => Math.hypot(b.u - pred.u, b.v - pred.v);
-  const candidates = win.blobs.filter((b) => b.area >= minArea && near(b) <= pred.gatePx + r + 1).sort((a, b) => near(a) - near(b));
+  // Distance from the prediction to the blob's box: a blob merged with clutter has its centroid off the projectile.
+  const near = (b: Blob) => {
+    const x0 = b.bboxLeft;
+    const y0 = b.bboxTop;
+    const dx = Math.max(x0 - pred.u, 0, pred.u - (x0 + b.bboxWidth));
+    const dy = Math.max(y0 - pred.v, 0, pred.v - (y0 + b.bboxHeight));
+    return Math.hypot(dx, dy);
+  };
+  const candidates = win.blobs
+    .filter((b) => b.area >= minArea && near(b) <= pred.gatePx)
+    .sort((a, b) => near(a) - near(b) || Math.hypot(a.u - pred.u, a.v - pred.v) - Math.hypot(b.u - pred.u, b.v - pred.v));
+  if (process.env.DEBUG_AUTOMARK) console.log('  window', frameNumber, win.blobs.map((b) => [b.u.toFixed(1), b.v.toFixed(1), b.area, b.peak.toFixed(0)].join(',')).join(' | '), 'exp', expectedCoverage.toFixed(1));
   for (const blob of candidates) {
-    const c = ctx.diff.centroidOf(blob.label);
+    const c = ctx.diff.centroidOf(blob.label, { radiusPx: r, du: pred.du, dv: pred.dv, blurPx: 0.6 * pred.speedPx }, pred);
     if (!c) continue;
     const dist = Math.hypot(c.u - pred.u, c.v - pred.v);
+    if (process.env.DEBUG_AUTOMARK) console.log('  cand', c.u.toFixed(2), c.v.toFixed(2), 'dist', dist.toFixed(2), 'cov', c.coverage.toFixed(1));
     if (dist > pred.gatePx) continue;
     if (c.touchesFrameEdge) return { kind: 'partial' };
     if (ctx.restPosition && Math.hypot(c.u - ctx.restPosition.u, c.v - ctx.restPosition.v) < Math.max(0.8, 0.25 * pred.speedPx)) return { kind: 'rest' };
@@ -114,6 +125,7 @@ export async function follow(ctx: TrackContext, history: TrackedMark[], directio
     const H = ctx.store.height;
     if (pred.u < -r || pred.v < -r || pred.u > W + r || pred.v > H + r) return { endReason: 'left-frame', added };
     const out = await measureAt(ctx, f, pred, medianCoverage(all, f));
+    if (process.env.DEBUG_AUTOMARK) console.log('follow', f, out.kind, pred.u.toFixed(2), pred.v.toFixed(2), pred.gatePx.toFixed(2), out.kind === 'mark' ? out.mark : '');
     ctx.progress(f);
     if (out.kind === 'rest') return { endReason: 'rest', added };
     if (out.kind === 'mark') {
