@@ -1,5 +1,5 @@
 import { and, eq, getTableColumns, sql } from 'drizzle-orm';
-import type { Db } from '../db/client';
+import type { Db, Tx } from '../db/client';
 import { marks, tracks } from '../db/schema/marking';
 import { users } from '../db/schema/users';
 import { notFound } from '../http/problem';
@@ -29,8 +29,6 @@ export class StaleMarkWrite extends Error {
     super('stale mark write');
   }
 }
-
-type Tx = Parameters<Parameters<Db['transaction']>[0]>[0];
 
 /** A person's write makes the mark theirs, whatever placed it before (an automatic mark accepted or moved included). */
 function byPerson(snapped: boolean) {
