@@ -10,6 +10,7 @@ import { exportMarksUrl } from '@/api/marks/export-marks';
 import { fetchMarks } from '@/api/marks/list-marks';
 import { useImportMarks } from '@/api/marks/import-marks';
 import type { Editor } from '../editor/editor-store';
+import { needsReview } from '../editor/review-pass';
 import { useEditor } from '../hooks/use-editor';
 import { apiMarkToEditor, type MarkSaving } from '../hooks/use-mark-saving';
 import { useWorldMarks, type WorldMark } from '../hooks/use-world-marks';
@@ -21,13 +22,19 @@ interface MarksLedgerProps {
   teamId: string;
   transform: CalibrationTransform | null;
   saving: MarkSaving;
+  /** The team's review threshold: automatic marks below it say "check". */
+  threshold: number;
+  /** Frames whose mark sits off the live preview curve. */
+  offCurve: Set<number>;
 }
 
 /** Every mark of the active track with its time, pixel and world position; CSV in and out. */
-export function MarksLedger({ editor, teamId, transform, saving }: MarksLedgerProps) {
+export function MarksLedger({ editor, teamId, transform, saving, threshold, offCurve }: MarksLedgerProps) {
   const { trackId: activeTrackId, marks: rows } = useWorldMarks(editor, teamId, transform);
   const canMark = useEditor(editor, (s) => s.permissions.canMark);
   const track = useEditor(editor, (s) => s.tracks.find((t) => t.id === activeTrackId));
+  // Where each mark came from (the automatic marker and how sure it was), by frame.
+  const provenance = useEditor(editor, (s) => (activeTrackId ? s.marksByTrack[activeTrackId] : undefined));
 
   const columns = useMemo(
     () =>
@@ -48,10 +55,35 @@ export function MarksLedger({ editor, teamId, transform, saving }: MarksLedgerPr
         col.accessor('yM', { header: 'y (m)', meta: { numeric: true }, cell: (c) => formatNumber(c.getValue(), { decimals: 4 }) }),
         col.accessor('snapped', {
           header: 'How',
-          cell: (c) => (c.getValue() ? <Badge tone="fit">snapped</Badge> : <Badge tone="signal">placed</Badge>),
+          cell: (c) =>
+            provenance?.[c.row.original.frameNumber]?.source === 'auto' ? (
+              <Badge tone="neutral">auto</Badge>
+            ) : c.getValue() ? (
+              <Badge tone="fit">snapped</Badge>
+            ) : (
+              <Badge tone="signal">placed</Badge>
+            ),
+        }),
+        col.display({
+          id: 'check',
+          header: 'Confidence',
+          cell: (c) => {
+            const m = provenance?.[c.row.original.frameNumber];
+            const flagged = !!m && needsReview(m, threshold);
+            const off = offCurve.has(c.row.original.frameNumber);
+            return (
+              <span className="flex flex-wrap items-center gap-1">
+                {m?.source === 'auto' && m.confidence !== null && m.confidence !== undefined && (
+                  <span className="tabular-nums">{Math.round(m.confidence * 100)}%</span>
+                )}
+                {flagged && <Badge tone="signal" title={m?.lowConfidenceReason ?? undefined}>{m?.lowConfidenceReason ? `check: ${m.lowConfidenceReason}` : 'check'}</Badge>}
+                {off && <Badge tone="alert">off curve</Badge>}
+              </span>
+            );
+          },
         }),
       ]),
-    [editor],
+    [editor, provenance, threshold, offCurve],
   );
 
   return (

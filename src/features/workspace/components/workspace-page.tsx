@@ -15,6 +15,14 @@ import { useWorkspaceData } from '../hooks/use-workspace-data';
 import { useWorkspaceEditor } from '../hooks/use-workspace-editor';
 import { useWorkspaceKeys } from '../hooks/use-workspace-keys';
 import { useWorldMarks } from '../hooks/use-world-marks';
+import { CAN } from '@shared/roles';
+import { useReviewThreshold } from '@/api/auto-mark/get-auto-mark-settings';
+import { useCurrentTeam } from '@/lib/use-current-team';
+import { useAutoMark } from '../hooks/use-auto-mark';
+import { useAutoMarkKeys } from '../hooks/use-auto-mark-keys';
+import { useMarkNotes, useOffCurveFrames } from '../hooks/use-mark-notes';
+import { useReviewPass } from '../hooks/use-review-pass';
+import { AutoMarkPanel } from './auto-mark-panel';
 import { CalibrationCard } from './calibration-card';
 import { FrameScrubber } from './frame-scrubber';
 import { FrameStage } from './frame-stage';
@@ -65,6 +73,15 @@ function Workspace({ teamId, clipId }: { teamId: string; clipId: string }) {
   }, [placed, transform, markCount]);
   const nextTS = worldMarks ? placed.nextTS : null;
   const preview = useFlightPreview(worldMarks, nextTS);
+
+  // Automatic marking, its review pass, and the words beside the marks.
+  const { can } = useCurrentTeam();
+  const threshold = useReviewThreshold(teamId);
+  const auto = useAutoMark(teamId, editor, saving);
+  const review = useReviewPass(editor, threshold);
+  useAutoMarkKeys(auto, review);
+  const offCurve = useOffCurveFrames(placed, preview, transform);
+  const notes = useMarkNotes(editor, offCurve, threshold);
 
   const addTrack = (kind: TrackKind) => {
     const count = data.tracks.filter((t) => t.kind === kind).length;
@@ -118,6 +135,7 @@ function Workspace({ teamId, clipId }: { teamId: string; clipId: string }) {
               preview={preview}
               spaceHeld={spaceHeld}
               fitRequest={fitRequest}
+              notes={notes}
             />
           </div>
           <FrameScrubber editor={editor} captureFps={clip.captureFps} />
@@ -125,11 +143,12 @@ function Workspace({ teamId, clipId }: { teamId: string; clipId: string }) {
         </div>
         <aside className="flex flex-col gap-3" aria-label="Panels">
           <TracksPanel editor={editor} onAdd={addTrack} adding={data.createTrack.isPending} />
+          <AutoMarkPanel teamId={teamId} auto={auto} review={review} threshold={threshold} canSetThreshold={can(CAN.runFits)} />
           <CalibrationCard editor={editor} teamId={teamId} clipId={clipId} saved={data.savedCalibration} transform={transformResult} />
           <PreviewLegend preview={preview} markCount={markCount} calibrated={!!transform} />
         </aside>
       </div>
-      <MarksLedger editor={editor} teamId={teamId} transform={transform} saving={saving} />
+      <MarksLedger editor={editor} teamId={teamId} transform={transform} saving={saving} threshold={threshold} offCurve={offCurve} />
       <ToolDialogs editor={editor} />
       <ShortcutHelpDialog open={helpOpen} onClose={() => setHelpOpen(false)} />
     </section>
