@@ -1,6 +1,8 @@
 import { describe, expect, it } from 'vitest';
 import type { Estimate } from '@shared/physics/types';
-import { formatEstimate, formatEstimateInterval, formatNumber, formatQuantity, formatUncertainty } from './format';
+import {
+  formatEstimate, formatEstimateInterval, formatNumber, formatPercent, formatPlusMinus, formatQuantity, formatUncertainty, formatWithInterval,
+} from './format';
 
 describe('formatNumber trim', () => {
   it('drops padding zeros only when asked', () => {
@@ -27,5 +29,52 @@ describe('estimates', () => {
   it('prints a fitted value with the decimals its interval earns, as the PDF does', () => {
     expect(formatEstimate(e)).toBe('23.46');
     expect(formatEstimateInterval(e)).toBe('23.30 to 23.61');
+  });
+});
+
+// Expected strings follow the SI Brochure (BIPM, 9th edition, 2019), section
+// "Formatting the value of a quantity" (§5.4.3, section number from memory):
+// a space between number and unit symbol, except for the degree of plane
+// angle. U+2212 MINUS and U+2013 EN DASH for ranges are typographic common
+// practice, not a standard.
+const NBSP = '\u00a0';
+
+describe('formatNumber', () => {
+  it('rounds to significant digits', () => {
+    expect(formatNumber(23.4149)).toBe('23.41');
+    expect(formatNumber(0.004567, { digits: 3 })).toBe('0.00457');
+    expect(formatNumber(1234.5, { digits: 3 })).toBe('1235'); // integer part is never cut
+  });
+  it('uses fixed decimals when asked and a true minus sign', () => {
+    expect(formatNumber(-3.14159, { decimals: 2 })).toBe('\u22123.14');
+  });
+  it('does not print a negative zero', () => {
+    expect(formatNumber(-0.0001, { decimals: 2 })).toBe('0.00');
+  });
+  it('shows a dash for missing values', () => {
+    expect(formatNumber(null)).toBe('—');
+    expect(formatNumber(Number.NaN)).toBe('—');
+  });
+});
+
+describe('formatQuantity', () => {
+  it('puts a non-breaking space before the unit (SI Brochure §5.4.3)', () => {
+    expect(formatQuantity(23.41, 'm/s')).toBe(`23.41${NBSP}m/s`);
+  });
+  it('attaches the degree sign without a space (SI Brochure §5.4.3)', () => {
+    expect(formatQuantity(41.5, '°', { decimals: 1 })).toBe('41.5°');
+  });
+});
+
+describe('intervals', () => {
+  it('writes a 95% interval with the value’s decimals', () => {
+    expect(formatWithInterval(23.4149, 'm/s', { low: 23.1, high: 23.72, level: 0.95 })).toBe(`23.41${NBSP}m/s (95%: 23.10\u201323.72)`);
+  });
+  it('writes a symmetric uncertainty with ±', () => {
+    expect(formatPlusMinus(0.4712, 0.0315, '', { digits: 3 })).toBe('0.471 ± 0.032');
+  });
+  it('prints confidence levels without trailing zeros', () => {
+    expect(formatPercent(0.95)).toBe('95%');
+    expect(formatPercent(0.999)).toBe('99.9%');
   });
 });

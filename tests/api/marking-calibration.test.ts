@@ -32,7 +32,7 @@ describe('calibration versions', () => {
     const first = await as.analyst.post(calibrationsOf(clipId)).send(SIMPLE_CALIBRATION);
     expect(first.status, JSON.stringify(first.body)).toBe(201);
     expect(first.body).toMatchObject({ version: 1, pixelsPerMetre: 200, rollDeg: 0, downrange: 'right', plane: null, createdBy: { displayName: demoPerson('analyst').displayName } });
-    // GUM: u_r = √((0.002/√3 / 1)² + (√2·0.5 / 200)²) = 0.00371932 (worked by hand in tests/unit/geometry).
+    // GUM: u_r = √((0.002/√3 / 1)² + (√2·0.5 / 200)²) = 0.00371932 (worked by hand in shared/geometry/scale-uncertainty.test.ts).
     expect(first.body.scaleRelUncertainty).toBeCloseTo(0.00371932, 7);
 
     const second = await as.admin.post(calibrationsOf(clipId)).send({ ...SIMPLE_CALIBRATION, scale: { ...SIMPLE_CALIBRATION.scale, lengthM: 2 }, note: 'tape re-measured' });

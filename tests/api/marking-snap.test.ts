@@ -2,7 +2,7 @@ import { Readable } from 'node:stream';
 import sharp from 'sharp';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { DEMO_PASSWORD, demoPerson } from '../../server/seed/demo-people';
-import { renderDisc } from '../unit/marking/render-disc';
+import { renderDisc } from '../support/render-disc';
 import { createMarkingClip, demoTeamId } from '../support/marking-clip';
 import { expectProblem } from '../support/problem';
 import { createTestApp, signInAs, uniqueSuffix, type TestApp } from '../support/test-app';

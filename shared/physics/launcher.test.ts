@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { adiabaticSpeed, constantPressureSpeedMps, launcherEfficiency } from '../../../shared/physics/launcher';
+import { adiabaticSpeed, constantPressureSpeedMps, launcherEfficiency } from './launcher';
 
 const BASE = { gaugePressurePa: 500e3, boreDiameterM: 0.04, barrelLengthM: 1.0, massKg: 0.05 };
 const AREA = (Math.PI * 0.04 ** 2) / 4;

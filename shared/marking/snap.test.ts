@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
-import { snapToCentroid } from '../../../shared/marking/snap';
-import { mulberry32, normalDeviates } from '../../../shared/random/prng';
-import { renderDisc } from './render-disc';
+import { snapToCentroid } from './snap';
+import { mulberry32, normalDeviates } from '../random/prng';
+import { renderDisc } from '../../tests/support/render-disc';
 
 function medianOf(values: number[]): number {
   const s = [...values].sort((a, b) => a - b);

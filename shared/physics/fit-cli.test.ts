@@ -6,10 +6,10 @@ import os from 'node:os';
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { syntheticMarks } from './support/synthetic-shot';
-import { dragKFromCd } from '../../../shared/physics/flight';
+import { syntheticMarks } from '../../tests/support/synthetic-shot';
+import { dragKFromCd } from './flight';
 
-const repoRoot = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '../../..');
+const repoRoot = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '../..');
 let dir: string;
 
 function runFit(args: string[]): Promise<{ code: number | null; stdout: string; stderr: string }> {

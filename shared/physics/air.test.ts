@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest';
 import {
   dryAirDensityKgM3, humidAirDensityKgM3, saturationVapourPressureBuckPa, speedOfSoundMps,
   standardAtmosphere1976, sutherlandViscosityPaS,
-} from '../../../shared/physics/air';
+} from './air';
 
 describe('air properties', () => {
   it('sea level matches US Standard Atmosphere 1976: 1.2250 kg/m3, 340.29 m/s, 101325 Pa, 288.15 K', () => {

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { applyHomography, invertHomography, normaliseHomography, solveHomography } from '../../../shared/geometry/homography';
-import { GeometryError } from '../../../shared/geometry/points';
+import { applyHomography, invertHomography, normaliseHomography, solveHomography } from './homography';
+import { GeometryError } from './points';
 
 // A known projective matrix (h33 = 1); the DLT from its own four point images
 // must give it back up to scale (Hartley & Zisserman, Multiple View Geometry, §4.1).

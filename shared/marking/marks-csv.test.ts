@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { formatMarksCsv, parseMarksCsv } from '../../../shared/marking/marks-csv';
+import { formatMarksCsv, parseMarksCsv } from './marks-csv';
 
 describe('marks CSV', () => {
   it('parses pixel files with CRLF, a BOM, spaces and blank lines', () => {

@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { createRequire } from 'node:module';
-import { flightDerivative, simulateTrajectory, PositionSampler } from '../../../shared/physics/flight';
-import { integrateDp45 } from '../../../shared/physics/dp45';
+import { flightDerivative, simulateTrajectory, PositionSampler } from './flight';
+import { integrateDp45 } from './dp45';
 
 // odex ships its TypeScript source next to the JS, and a static import would make
 // tsc type-check that source (it does not pass strict mode). Load it at run time

@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
-import { leastSquares } from '../../../shared/physics/least-squares';
-import { linearLeastSquares } from '../../../shared/physics/linear-least-squares';
-import { mulberry32, normalDeviates } from '../../../shared/random/prng';
+import { leastSquares } from './least-squares';
+import { linearLeastSquares } from './linear-least-squares';
+import { mulberry32, normalDeviates } from '../random/prng';
 
 describe('generic least squares', () => {
   const noise = normalDeviates(mulberry32(99));

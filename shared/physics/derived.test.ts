@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
-import { ballisticCoefficientKgM2, checkFlow, reynoldsNumber } from '../../../shared/physics/derived';
-import { HANDBOOK_DRAG } from '../../../shared/physics/handbook-drag';
-import { sutherlandViscosityPaS } from '../../../shared/physics/air';
+import { ballisticCoefficientKgM2, checkFlow, reynoldsNumber } from './derived';
+import { HANDBOOK_DRAG } from './handbook-drag';
+import { sutherlandViscosityPaS } from './air';
 
 describe('derived numbers and cautions', () => {
   it('Reynolds number rho v d / mu and ballistic coefficient m / (Cd A), by hand', () => {

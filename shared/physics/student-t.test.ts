@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { normalQuantile, studentTCdf, studentTQuantile } from '../../../shared/physics/student-t';
+import { normalQuantile, studentTCdf, studentTQuantile } from './student-t';
 
 describe('Student t quantile', () => {
   // Source: standard two-sided t table (e.g. NIST/SEMATECH e-Handbook of

@@ -1,7 +1,7 @@
 // The time-base rules on hand-made timestamp lists, where the right answer is
 // known by construction (closed forms: frame i of a constant-rate clip at i / fps).
 import { describe, expect, it } from 'vitest';
-import { analyseTimeBase, formatFps } from '../../../server/media/time-base';
+import { analyseTimeBase, formatFps } from './time-base';
 
 /** Interval pattern of a jittery camera clock (±20 % around the nominal). */
 const JITTER = [0.8, 1.2, 1.0, 0.85, 1.15];

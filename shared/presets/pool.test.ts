@@ -1,7 +1,7 @@
 import { chiSquaredDistributionTable, standardDeviation, sum, weightedMean } from 'simple-statistics';
 import { describe, expect, it } from 'vitest';
-import { chiSquareUpperTail, logGamma } from '../../../shared/presets/chi-square';
-import { poolInverseVariance, type PoolInput } from '../../../shared/presets/pool';
+import { chiSquareUpperTail, logGamma } from './chi-square';
+import { poolInverseVariance, type PoolInput } from './pool';
 
 // Drag coefficients of five approved fits of one projectile, with their standard errors.
 const FITS: PoolInput[] = [

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { scaleWithUncertainty } from '../../../shared/geometry/scale-uncertainty';
-import { mulberry32, normalDeviates } from '../../../shared/random/prng';
+import { scaleWithUncertainty } from './scale-uncertainty';
+import { mulberry32, normalDeviates } from '../random/prng';
 
 describe('pixels per metre and its uncertainty (GUM, JCGM 100:2008)', () => {
   it('combines a uniform length tolerance (§4.3.7: a/√3) and end-point σ (√2·σ) in quadrature', () => {

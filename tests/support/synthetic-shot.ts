@@ -1,7 +1,7 @@
 // Synthetic marks from a known shot, for round-trip tests and the bench.
-import { simulateTrajectory } from '../../../../shared/physics/flight';
-import type { FitMark } from '../../../../shared/physics/types';
-import { mulberry32, normalDeviates } from '../../../../shared/random/prng';
+import { simulateTrajectory } from '../../shared/physics/flight';
+import type { FitMark } from '../../shared/physics/types';
+import { mulberry32, normalDeviates } from '../../shared/random/prng';
 
 export interface SyntheticShot {
   speedMps: number;

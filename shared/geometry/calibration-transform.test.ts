@@ -5,10 +5,10 @@ import {
   similarityToImage,
   similarityToWorld,
   type CalibrationGeometry,
-} from '../../../shared/geometry/calibration-transform';
-import { applyHomography } from '../../../shared/geometry/homography';
-import { GeometryError } from '../../../shared/geometry/points';
-import { mulberry32 } from '../../../shared/random/prng';
+} from './calibration-transform';
+import { applyHomography } from './homography';
+import { GeometryError } from './points';
+import { mulberry32 } from '../random/prng';
 
 const SQRT3 = Math.sqrt(3);
 

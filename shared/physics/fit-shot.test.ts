@@ -1,9 +1,9 @@
 import { describe, expect, it } from 'vitest';
-import { fitShot } from '../../../shared/physics/fit-shot';
-import { cdFromDragK, dragKFromCd } from '../../../shared/physics/flight';
-import { HANDBOOK_DRAG } from '../../../shared/physics/handbook-drag';
-import { syntheticMarks } from './support/synthetic-shot';
-import { FitInputError } from '../../../shared/physics/validate-marks';
+import { fitShot } from './fit-shot';
+import { cdFromDragK, dragKFromCd } from './flight';
+import { HANDBOOK_DRAG } from './handbook-drag';
+import { syntheticMarks } from '../../tests/support/synthetic-shot';
+import { FitInputError } from './validate-marks';
 
 // A tennis-ball-sized sphere: d = 65 mm, m = 58 g, sea-level air.
 const BALL = { massKg: 0.058, diameterM: 0.065, airDensityKgM3: 1.225 };

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { fitDragFree } from '../../../shared/physics/drag-free-fit';
-import { mulberry32, normalDeviates } from '../../../shared/random/prng';
+import { fitDragFree } from './drag-free-fit';
+import { mulberry32, normalDeviates } from '../random/prng';
 
 const G = 9.80665;
 

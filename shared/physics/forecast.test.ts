@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { bestElevationForRange, forecastShot, vacuumForecast } from '../../../shared/physics/forecast';
-import { dragKFromCd } from '../../../shared/physics/flight';
+import { bestElevationForRange, forecastShot, vacuumForecast } from './forecast';
+import { dragKFromCd } from './flight';
 
 const G = 9.80665;
 

@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
-import { parseFitMarksCsv } from '../../../shared/marking/marks-csv';
-import { airDensityFor, parseFitArgs, runFitCli } from '../../../shared/physics/fit-cli';
-import { FitInputError } from '../../../shared/physics/validate-marks';
+import { parseFitMarksCsv } from './marks-csv';
+import { airDensityFor, parseFitArgs, runFitCli } from '../physics/fit-cli';
+import { FitInputError } from '../physics/validate-marks';
 
 const rows = (n: number) => Array.from({ length: n }, (_, i) => `${(i / 240).toFixed(6)},${(0.1 * i).toFixed(4)},${(1 + 0.05 * i).toFixed(4)}`);
 

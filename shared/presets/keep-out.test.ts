@@ -1,10 +1,10 @@
 import { describe, expect, it } from 'vitest';
-import { STANDARD_GRAVITY_MPS2 } from '../../../shared/physics/constants';
-import { dragKFromCd } from '../../../shared/physics/flight';
-import { bestElevationForRange } from '../../../shared/physics/forecast';
-import { adiabaticSpeed } from '../../../shared/physics/launcher';
-import { keepOutDistance, type KeepOutSetup } from '../../../shared/presets/keep-out';
-import { airDensityFor } from '../../../shared/presets/preset-forecast';
+import { STANDARD_GRAVITY_MPS2 } from '../physics/constants';
+import { dragKFromCd } from '../physics/flight';
+import { bestElevationForRange } from '../physics/forecast';
+import { adiabaticSpeed } from '../physics/launcher';
+import { keepOutDistance, type KeepOutSetup } from './keep-out';
+import { airDensityFor } from './preset-forecast';
 
 const BASE: KeepOutSetup = {
   values: { dragCoefficient: 0.82, dragCoefficientStd: 0.02, efficiency: 0.05, efficiencyStd: 0.005, launcherModel: 'adiabatic' },
