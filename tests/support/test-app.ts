@@ -24,6 +24,11 @@ export interface TestAppOptions {
    * Give the test file its own config.jobSchema so its jobs stay its own.
    */
   jobs?: 'worker' | 'send-only';
+  /**
+   * In the S3 run, jobs normally go to the run's two `npm run worker` processes;
+   * a test that runs workers of its own keeps its config.jobSchema and worker choice.
+   */
+  ownWorkers?: boolean;
 }
 
 /** The real app on the real test database, with the local SMTP fake; one per test file. */
@@ -33,9 +38,12 @@ export async function createTestApp(overrides: Partial<Config> = {}, extraDeps: 
   if (s3) {
     // The S3 run (project api-s3): clips in the fake, jobs to the two `npm run worker`
     // processes on the shared queue, and a local storage folder that must stay empty.
-    config = { ...loadConfig({ ...process.env, ...s3.storageEnv }), ...overrides, jobSchema: s3.jobSchema, inProcessWorker: false };
+    config = { ...loadConfig({ ...process.env, ...s3.storageEnv }), ...overrides };
     config.storageDir = overrides.storageDir ?? s3.newLocalStorageDir('app');
-    if (options.jobs === 'worker') options = { ...options, jobs: 'send-only' };
+    if (!options.ownWorkers) {
+      config = { ...config, jobSchema: s3.jobSchema, inProcessWorker: false };
+      if (options.jobs === 'worker') options = { ...options, jobs: 'send-only' };
+    }
   }
   const database = connect(config.databaseUrl, 4);
   const smtp = await startFakeSmtp(database.db);
