@@ -6,7 +6,7 @@ export type Role = (typeof ROLES)[number];
 export const ROLE_LABELS: Record<Role, string> = {
   admin: 'Admin',
   analyst: 'Analyst',
-  tracker: 'Tracker',
+  tracker: 'Frame marker',
   engineer: 'Engineer',
   viewer: 'Viewer',
 };

@@ -1,20 +1,21 @@
 // Printed once the server is up. The people mirror server/seed/demo-people.ts
 // (kept in sync by tests/unit/banner.test.ts).
 export const DEMO_SIGN_INS = [
-  ['admin', 'maren.holt@kestrel.test'],
-  ['analyst', 'tomas.reyes@kestrel.test'],
-  ['tracker', 'ines.varga@kestrel.test'],
-  ['engineer', 'dev.okafor@kestrel.test'],
-  ['viewer', 'lou.brandt@kestrel.test'],
+  ['admin', 'maren.holt@ollendry.test'],
+  ['analyst', 'tomas.reyes@ollendry.test'],
+  ['tracker', 'ines.varga@ollendry.test'],
+  ['engineer', 'dev.okafor@ollendry.test'],
+  ['viewer', 'lou.brandt@ollendry.test'],
+  ['engineer', 'sana.quist@ollendry.test'],
 ];
-export const DEMO_PASSWORD = 'kestrel-demo-2026';
+export const DEMO_PASSWORD = 'ollendry-demo-2026';
 
 export function printSignIns(url) {
   const lines = [
     '',
     `  Arcbench is running at ${url}`,
     '',
-    `  Demo sign-ins (team Kestrel Line Systems; password for all: ${DEMO_PASSWORD} — demo only):`,
+    `  Demo sign-ins (team Ollendry Line Works; password for all: ${DEMO_PASSWORD} — demo only):`,
     ...DEMO_SIGN_INS.map(([role, email]) => `    ${role.padEnd(9)} ${email}`),
     '',
     '  Press Ctrl-C to stop the server and the database.',

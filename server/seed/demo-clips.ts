@@ -92,7 +92,7 @@ async function seedClips(db: Db, teamId: string): Promise<void> {
         continue;
       }
       scratch ??= await mkdtemp(path.join(os.tmpdir(), 'arcbench-demo-'));
-      const spec = presetSpec('clean', { ...SCENE, ...demo.clip, name: `harrow-${demo.label.toLowerCase()}` });
+      const spec = presetSpec('clean', { ...SCENE, ...demo.clip, name: `wendlow-${demo.label.toLowerCase()}` });
       const rendered = await generateClip(spec, scratch);
       const sizeBytes = (await stat(rendered.videoPath)).size;
       const name = path.basename(rendered.videoPath);

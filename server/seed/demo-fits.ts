@@ -44,7 +44,7 @@ const PLANS: DemoFitPlan[] = [
   { label: 'H-03', seed: 203, fit: null, muzzle: false },
 ];
 
-const APPROVAL_NOTE = 'Residuals flat, drag resolved; fine as the LT-40 reference shot.';
+const APPROVAL_NOTE = 'Residuals flat, drag resolved; fine as the OL-40 reference shot.';
 
 async function userIdOf(db: Db, email: string): Promise<string | null> {
   const [row] = await db.select({ id: users.id }).from(users).where(eq(users.email, email));

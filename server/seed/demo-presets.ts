@@ -1,6 +1,6 @@
-// Kestrel's design presets with history: each starts (version 1) from a
+// Ollendry's design presets with history: each starts (version 1) from a
 // handbook drag coefficient and a stated efficiency assumption, and version 2
-// pools the approved fits of the morning session. For the LT-40 two later
+// pools the approved fits of the morning session. For the OL-40 two later
 // approved shots are left out of version 2 on purpose, so there is something
 // new for an engineer to fold in. Idempotent: keyed on shot labels and preset names.
 import { and, eq } from 'drizzle-orm';
@@ -16,7 +16,7 @@ import { DEMO_LAUNCHER_NAMES, DEMO_PROJECTILE_NAMES, DEMO_SERIES_NAME } from './
 import type { SeedStep } from './seed-demo';
 import { createSimulatedApprovedFit, type SimulatedShotSpec } from './simulated-fits';
 
-export const DEMO_PRESET_NAMES = { lt40: 'LT-40 · foam head 40 · field', lt25: 'LT-25 · training ball 25' } as const;
+export const DEMO_PRESET_NAMES = { lt40: 'OL-40 · foam head 40 · field', lt25: 'OL-25 · training ball 25' } as const;
 
 interface DemoPresetPlan {
   name: string;
@@ -118,7 +118,7 @@ async function seedPresets(db: Db, teamId: string): Promise<void> {
       const loaded = await loadPreset(db, teamId, presetId);
       await publishVersion(db, teamId, engineerId, loaded, {
         fitIds: fitIds.slice(0, plan.pooledInV2),
-        note: 'Pooled from the approved shots of the Harrow Flats morning session.',
+        note: 'Pooled from the approved shots of the Wendlow Flats morning session.',
       });
     }
   }

@@ -3,11 +3,11 @@ import type { Db } from '../db/client';
 import { launchers, projectiles, testSeries } from '../db/schema/records';
 import type { SeedStep } from './seed-demo';
 
-// Kestrel Line Systems' kit and its first test session at Harrow Flats.
+// Ollendry Line Works' kit and its first test session at Wendlow Flats.
 // Shots and clips of this series are seeded by the clips seed step,
 // which finds these rows by name; these names are the contract between the two steps.
-export const DEMO_SERIES_NAME = 'Harrow Flats — morning session';
-export const DEMO_LAUNCHER_NAMES = { lt40: 'Kestrel LT-40 line thrower', lt25: 'Kestrel LT-25 trainer' } as const;
+export const DEMO_SERIES_NAME = 'Wendlow Flats — morning session';
+export const DEMO_LAUNCHER_NAMES = { lt40: 'Ollendry OL-40 line thrower', lt25: 'Ollendry OL-25 trainer' } as const;
 export const DEMO_PROJECTILE_NAMES = { foamHead40: 'Foam line head 40', rubberBall25: 'Rubber training ball 25' } as const;
 
 const DEMO_LAUNCHERS = [
@@ -39,8 +39,8 @@ const DEMO_PROJECTILES = [
 const DEMO_SERIES = {
   name: DEMO_SERIES_NAME,
   testDate: '2026-04-18',
-  site: 'Harrow Flats test field',
-  notes: 'Calm morning, light dew. LT-40 with foam heads along the north lane.',
+  site: 'Wendlow Flats test field',
+  notes: 'Calm morning, light dew. OL-40 with foam heads along the north lane.',
 };
 
 async function seedRecords(db: Db, teamId: string): Promise<void> {

@@ -76,7 +76,7 @@ describe('sign-in and sign-out', () => {
   });
 
   it('gives the same answer for an unknown e-mail and a wrong password', async () => {
-    const unknown = await agent(t.app).post('/api/auth/sign-in').send({ email: 'nobody-here@kestrel.test', password: 'whatever-password' });
+    const unknown = await agent(t.app).post('/api/auth/sign-in').send({ email: 'nobody-here@ollendry.test', password: 'whatever-password' });
     const wrong = await agent(t.app).post('/api/auth/sign-in').send({ email: viewer.email, password: 'not-the-password' });
     expectProblem(unknown, 401);
     expectProblem(wrong, 401);

@@ -26,8 +26,8 @@ let cleanupClip: () => Promise<void>;
 let shot: MarkedShot;
 const as: Partial<Record<'maren' | 'tomas' | 'dev' | 'ines' | 'lou' | 'quietAnalyst', request.Agent>> = {};
 const sfx = uniqueSuffix();
-const quietEngineer = `quiet.engineer.${sfx}@kestrel.test`;
-const quietAnalyst = `quiet.analyst.${sfx}@kestrel.test`;
+const quietEngineer = `quiet.engineer.${sfx}@ollendry.test`;
+const quietAnalyst = `quiet.analyst.${sfx}@ollendry.test`;
 
 async function userId(email: string) {
   return (await t.deps.db.select({ id: users.id }).from(users).where(eq(users.email, email)))[0].id;

@@ -21,7 +21,7 @@ beforeAll(async () => {
   admin = await signInAs(t.app, demoPerson('admin').email, DEMO_PASSWORD);
   // A team of its own, so the demo team keeps its five people.
   teamName = `Invite Trials ${uniqueSuffix()}`;
-  const res = await admin.post('/api/teams').send({ name: teamName, siteName: 'Harrow Flats test field' });
+  const res = await admin.post('/api/teams').send({ name: teamName, siteName: 'Wendlow Flats test field' });
   expect(res.status).toBe(201);
   teamId = res.body.id;
 });

@@ -29,7 +29,7 @@ let teamId: string;
 const sfx = uniqueSuffix();
 const url = (path: string) => `/api/teams/${teamId}${path}`;
 
-// A launcher like the demo LT-40 and a 55 g, 40 mm head; the day's air.
+// A launcher like the demo OL-40 and a 55 g, 40 mm head; the day's air.
 const LAUNCHER = { name: `Preset test launcher ${sfx}`, boreM: 0.04, barrelLengthM: 0.6, chamberVolumeM3: 0.0015, maxWorkingPressurePa: 1.0e6, valveType: 'piston' };
 const PROJECTILE = { name: `Preset test head ${sfx}`, massKg: 0.055, diameterM: 0.04, shape: 'sphere' };
 const DAY = { airTempC: 11, stationPressurePa: 101_300, relativeHumidityPct: 82 };

@@ -38,7 +38,7 @@ function expectProblem(res: request.Response, status: number) {
 const url = (path: string) => `/api/teams/${teamId}${path}`;
 
 async function makeSeries(name: string) {
-  const res = await analyst.post(url('/series')).send({ name, testDate: '2026-04-18', site: 'Harrow Flats test field' });
+  const res = await analyst.post(url('/series')).send({ name, testDate: '2026-04-18', site: 'Wendlow Flats test field' });
   expect(res.status).toBe(201);
   return res.body.id as string;
 }
@@ -51,9 +51,9 @@ async function auditActions(targetId: string) {
 describe('series', () => {
   it('creates, reads, updates, lists and deletes, with audit entries', async () => {
     const name = `Series ${suffix}`;
-    const created = await analyst.post(url('/series')).send({ name, testDate: '2026-04-18', site: ' Harrow Flats ', notes: '' });
+    const created = await analyst.post(url('/series')).send({ name, testDate: '2026-04-18', site: ' Wendlow Flats ', notes: '' });
     expect(created.status).toBe(201);
-    expect(created.body).toMatchObject({ name, testDate: '2026-04-18', site: 'Harrow Flats', notes: null, shotCount: 0 });
+    expect(created.body).toMatchObject({ name, testDate: '2026-04-18', site: 'Wendlow Flats', notes: null, shotCount: 0 });
     const id = created.body.id;
 
     expect((await viewer.get(url(`/series/${id}`))).body.name).toBe(name);

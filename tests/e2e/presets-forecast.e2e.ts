@@ -1,5 +1,5 @@
 // The engineer folds approved shots into a preset in a real browser (Debian
-// chromium): Dev Okafor reads the LT-40 forecast, pools the approved demo fits
+// chromium): Dev Okafor reads the OL-40 forecast, pools the approved demo fits
 // into a new version after seeing the pooled value and the heterogeneity
 // words, and the forecast page then shows different numbers from the new version.
 import type { Page } from 'playwright-core';

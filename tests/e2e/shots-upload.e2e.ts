@@ -55,7 +55,7 @@ it('creates a series and a shot, uploads a clip, watches extraction finish and s
   await row.getByRole('link', { name: 'Add shot' }).click();
   await page.waitForURL(/\/shots\/new/);
   await page.getByLabel('Label').fill(label);
-  await page.getByLabel('Launcher').selectOption({ label: 'Kestrel LT-40 line thrower' });
+  await page.getByLabel('Launcher').selectOption({ label: 'Ollendry OL-40 line thrower' });
   await page.getByLabel('Chamber pressure (kPa)').fill('650');
   await page.getByLabel('Elevation setting (°)').fill('35');
   await page.getByLabel('Air temperature (°C)').fill('11.5');
@@ -67,7 +67,7 @@ it('creates a series and a shot, uploads a clip, watches extraction finish and s
 
   // Stored in SI as the API contract says: 650 kPa = 650 000 Pa, 1008.7 hPa = 100 870 Pa.
   const shot = await (await page.request.get(`${base}/api/teams/${teamId}/shots/${shotId}`)).json();
-  expect(shot).toMatchObject({ label, seriesName, chamberPressurePa: 650_000, stationPressurePa: 100_870, elevationDeg: 35, launcherName: 'Kestrel LT-40 line thrower' });
+  expect(shot).toMatchObject({ label, seriesName, chamberPressurePa: 650_000, stationPressurePa: 100_870, elevationDeg: 35, launcherName: 'Ollendry OL-40 line thrower' });
 
   // A file that is not a video is refused with the server's reason on screen, and nothing is stored.
   const fake = path.join(workDir, 'notes.mp4');

@@ -15,7 +15,7 @@ beforeAll(async () => {
 afterAll(() => browser?.close());
 
 const suffix = `${Date.now().toString(36)}${Math.random().toString(36).slice(2, 6)}`;
-const newcomer = { email: `newcomer-${suffix}@kestrel.test`, name: `Rui Newcomer ${suffix}`, password: 'a long enough phrase 42' };
+const newcomer = { email: `newcomer-${suffix}@ollendry.test`, name: `Rui Newcomer ${suffix}`, password: 'a long enough phrase 42' };
 
 it('invites a tracker, shows the mail in the outbox, and the link makes a member with that role', async () => {
   const baseUrl = inject('baseUrl');
@@ -88,14 +88,14 @@ it('invites a tracker, shows the mail in the outbox, and the link makes a member
   await guest.waitForURL(/\/t\/[0-9a-f-]{36}$/);
   // Wait for the heading itself: the URL changes a moment before the new page renders.
   await guest.getByRole('heading', { level: 1, name: DEMO_TEAM.name, exact: true }).waitFor();
-  await expect(guest.getByRole('region', { name: 'Your role' }).getByText('Tracker', { exact: true }).isVisible()).resolves.toBe(true);
+  await expect(guest.getByRole('region', { name: 'Your role' }).getByText('Frame marker', { exact: true }).isVisible()).resolves.toBe(true);
 
   // Opening the same link again now says plainly that it was used.
   await guest.goto(`${baseUrl}${new URL(href!).pathname}`);
   await guest.getByRole('heading', { name: 'This invitation has already been used' }).waitFor();
 
   // The admin invites someone else and revokes it through the confirm dialog.
-  const other = `second-${suffix}@kestrel.test`;
+  const other = `second-${suffix}@ollendry.test`;
   await page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Members' }).click();
   const inviteAgain = page.getByRole('region', { name: 'Invite someone' });
   await inviteAgain.getByLabel('E-mail').fill(other);

@@ -84,7 +84,7 @@ it('an analyst calibrates, a tracker marks ten frames, and after a reload the le
   const lengthDialog = a.getByRole('dialog', { name: 'Length of the scale reference' });
   await lengthDialog.getByLabel('Length').fill(String(truth.scaleReference.lengthM));
   await lengthDialog.getByLabel('Tolerance (±)').fill('1');
-  await lengthDialog.getByRole('button', { name: 'Set scale' }).click();
+  await lengthDialog.getByRole('button', { name: 'Use this length' }).click();
   // The loupe follows the cursor over the frame.
   await a.mouse.move(Math.round((await stageGeometry(a)).left + 300), Math.round((await stageGeometry(a)).top + 200));
   await a.waitForFunction(() => document.querySelector<HTMLElement>('[data-testid="frame-stage"]')?.dataset.loupe === 'on');

@@ -24,7 +24,7 @@ export async function demoTeamId(db: Db): Promise<string> {
 export async function createShot(db: Db, teamId: string, suffix: string): Promise<string> {
   const [series] = await db
     .insert(testSeries)
-    .values({ teamId, name: `Clip tests ${suffix}`, testDate: '2026-05-14', site: 'Harrow Flats test field' })
+    .values({ teamId, name: `Clip tests ${suffix}`, testDate: '2026-05-14', site: 'Wendlow Flats test field' })
     .returning({ id: testSeries.id });
   const [shot] = await db.insert(shots).values({ teamId, seriesId: series.id, label: `Shot ${suffix}` }).returning({ id: shots.id });
   return shot.id;

@@ -16,7 +16,7 @@ export async function jsonOf<T>(res: APIResponse): Promise<T> {
 
 export async function demoTeamId(request: APIRequestContext, baseUrl: string): Promise<string> {
   const me = await jsonOf<{ teams: { id: string; name: string }[] }>(await request.get(`${baseUrl}/api/auth/me`));
-  const team = me.teams.find((t) => t.name === 'Kestrel Line Systems');
+  const team = me.teams.find((t) => t.name === 'Ollendry Line Works');
   if (!team) throw new Error('the signed-in person is not in the demo team');
   return team.id;
 }

@@ -42,7 +42,7 @@ function ScaleLengthDialog({ editor, onCancel }: { editor: Editor; onCancel: () 
         <TextField label="Tolerance (±)" suffix="mm" inputMode="decimal" value={tolerance} onChange={(e) => setTolerance(e.target.value)} hint="As stated for the reference, e.g. ±1 mm for a steel rule." />
         <div className="flex justify-end gap-2">
           <Button onClick={onCancel}>Cancel</Button>
-          <Button type="submit" variant="primary">Set scale</Button>
+          <Button type="submit" variant="primary">Use this length</Button>
         </div>
       </form>
     </Dialog>

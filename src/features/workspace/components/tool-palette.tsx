@@ -36,7 +36,7 @@ export function ToolPalette({ editor }: { editor: Editor }) {
             aria-pressed={active === t.id}
             aria-keyshortcuts={t.key}
             disabled={!allowed(t.kind)}
-            title={allowed(t.kind) ? `${t.hint} (${t.key})` : t.kind === 'mark' ? 'Marking needs the tracker, analyst or admin role.' : 'Calibration needs the analyst or admin role.'}
+            title={allowed(t.kind) ? `${t.hint} (${t.key})` : t.kind === 'mark' ? 'Marking needs the frame marker, analyst or admin role.' : 'Calibration needs the analyst or admin role.'}
             onClick={() => editor.setTool(t.id)}
             className={cx(
               'inline-flex h-8 items-center gap-1.5 rounded-md px-2.5 text-body font-medium transition-colors disabled:cursor-not-allowed disabled:opacity-45',
