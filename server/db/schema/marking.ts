@@ -71,6 +71,9 @@ export const tracks = pgTable(
     kind: text('kind').$type<TrackKind>().notNull().default('projectile'),
     /** Bumped by every mark write; each written mark takes the new value as its revision. */
     revision: integer('revision').notNull().default(0),
+    /** Set when a frame marker hands the track to the engineers; cleared when they take it back. */
+    markingDoneAt: timestamp('marking_done_at', { withTimezone: true }),
+    markingDoneBy: uuid('marking_done_by').references(() => users.id, { onDelete: 'set null' }),
     createdBy: uuid('created_by').references(() => users.id, { onDelete: 'set null' }),
     createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
   },

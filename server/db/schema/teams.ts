@@ -1,4 +1,4 @@
-import { index, pgTable, primaryKey, real, text, timestamp, uuid } from 'drizzle-orm/pg-core';
+import { boolean, index, pgTable, primaryKey, real, text, timestamp, uuid } from 'drizzle-orm/pg-core';
 import { teamRole } from './enums';
 import { users } from './users';
 
@@ -9,6 +9,8 @@ export const teams = pgTable('teams', {
   siteName: text('site_name'),
   /** Automatic marks below this confidence are flagged for review and left out of fits. */
   autoMarkReviewThreshold: real('auto_mark_review_threshold').notNull().default(0.6),
+  /** Separation of duties: the person who ran a fit may not approve it. On unless an admin turns it off. */
+  separateFitApproval: boolean('separate_fit_approval').notNull().default(true),
   createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
 });
 
