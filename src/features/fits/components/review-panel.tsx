@@ -5,6 +5,7 @@ import { Card } from '@/components/ui/card';
 import { FormError } from '@/components/ui/form-error';
 import { TextareaField } from '@/components/ui/textarea-field';
 import { useReviewFit } from '@/api/fits/review-fit';
+import { apiFieldError } from '@/lib/form-errors';
 import { FitStateBadge } from './fit-state-badge';
 
 /** Sign-off for engineers: approve or reject a fit awaiting review. Approved fits are frozen. */
@@ -34,8 +35,8 @@ export function ReviewPanel({ teamId, fit, canReview }: { teamId: string; fit: F
             submit('approve');
           }}
         >
-          <TextareaField label="Note" hint="Required when rejecting: say what to fix." value={note} onChange={(e) => setNote(e.target.value)} maxLength={2000} />
-          <FormError error={review.error} />
+          <TextareaField label="Note" hint="Required when rejecting: say what to fix." value={note} onChange={(e) => setNote(e.target.value)} maxLength={2000} error={apiFieldError(review.error, 'note')} />
+          <FormError error={review.error} hideFields={['note']} />
           <div className="flex gap-2">
             <Button type="submit" variant="primary" busy={review.isPending && review.variables?.decision === 'approve'} disabled={review.isPending}>
               Approve fit
