@@ -1,4 +1,4 @@
-import { and, asc, count, desc, eq, ilike, or, sql } from 'drizzle-orm';
+import { and, asc, count, desc, eq, getTableName, ilike, or, sql } from 'drizzle-orm';
 import type { z } from 'zod';
 import type { SeriesCreateBody, SeriesListQuery } from '../../shared/schemas/records';
 import { audit } from '../audit';
@@ -11,7 +11,10 @@ import { conflict, notFound } from '../http/problem';
 type ListQuery = z.output<typeof SeriesListQuery>;
 type CreateValues = z.output<typeof SeriesCreateBody>;
 
-const shotCount = sql<number>`(select count(*)::int from ${shots} where ${shots.seriesId} = ${testSeries.id})`;
+// Drizzle prints columns inside a select's sql template without their table, so a plain
+// `${shots.seriesId} = ${testSeries.id}` became `"series_id" = "id"` — shots' own id — and counted 0.
+// Both sides are qualified by hand here.
+const shotCount = sql<number>`(select count(*)::int from ${shots} where ${sql.identifier(getTableName(shots))}.${sql.identifier(shots.seriesId.name)} = ${sql.identifier(getTableName(testSeries))}.${sql.identifier(testSeries.id.name)})`;
 const columns = {
   id: testSeries.id,
   name: testSeries.name,
