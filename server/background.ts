@@ -1,5 +1,6 @@
 import type { AppDeps } from './app-deps';
 import { startJobQueue } from './jobs/queue';
+import { startDigestTimer } from './notifications/digest-timer';
 
 export interface Background {
   /** Extra dependencies the background services give route handlers (e.g. the job queue). */
@@ -17,5 +18,12 @@ export async function startBackground(deps: AppDeps): Promise<Background> {
   if (deps.config.inProcessWorker) {
     await queue.startWorker({ db: deps.db, storage: deps.storage, config: deps.config, log: (line) => process.stdout.write(`${line}\n`) });
   }
-  return { deps: { jobs: queue.jobs }, stop: () => queue.stop() };
+  const stopDigests = startDigestTimer(deps);
+  return {
+    deps: { jobs: queue.jobs },
+    stop: () => {
+      stopDigests();
+      return queue.stop();
+    },
+  };
 }

@@ -24,7 +24,7 @@ export const signedIn = tag(async (req, res, next) => {
   if (!userId) return next(unauthorized());
   const { db } = depsOf(req);
   const [user] = await db
-    .select({ id: users.id, email: users.email, displayName: users.displayName, notifyByEmail: users.notifyByEmail })
+    .select({ id: users.id, email: users.email, displayName: users.displayName, notificationMode: users.notificationMode })
     .from(users)
     .where(eq(users.id, userId));
   if (!user) {

@@ -13,5 +13,5 @@ export async function loadMe(db: Db, userId: string): Promise<Me | null> {
     .innerJoin(teams, eq(teams.id, memberships.teamId))
     .where(eq(memberships.userId, userId))
     .orderBy(teams.name);
-  return { id: user.id, email: user.email, displayName: user.displayName, notifyByEmail: user.notifyByEmail, teams: rows };
+  return { id: user.id, email: user.email, displayName: user.displayName, notificationMode: user.notificationMode, teams: rows };
 }

@@ -1,11 +1,15 @@
 // E-mail about fits. Who hears what: everyone who may review (CAN.review) when a
-// fit awaits review, and the person who ran the fit when it is approved or
-// rejected. Users who turned notifications off (users.notify_by_email) are skipped.
-import { and, eq, inArray, ne } from 'drizzle-orm';
+// fit awaits review; when it is approved, the person who ran it; when it is
+// rejected, the person who ran it and the analyst and frame marker of its clip
+// (uploader, calibrator, marker), with the reviewer's note. Each person's own
+// choice (none, each event, daily digest) is applied by notifyPeople.
+import { eq } from 'drizzle-orm';
 import { CAN } from '../../shared/roles';
 import type { AppDeps } from '../app-deps';
-import { memberships } from '../db/schema/teams';
-import { users } from '../db/schema/users';
+import { clips } from '../db/schema/clips';
+import { fits } from '../db/schema/fits';
+import { calibrations, marks, tracks } from '../db/schema/marking';
+import { membersInRoles, notifyPeople } from '../notifications/hand-off-mail';
 
 export interface FitMailContext {
   teamId: string;
@@ -25,30 +29,8 @@ function headline(ctx: FitMailContext): string {
   return `Launch speed ${ctx.launchSpeedMps.toFixed(2)} m/s, drag coefficient ${cd}.`;
 }
 
-/** Sends one message per recipient; a mail failure is logged, never undoes the fit or the review. */
-async function sendAll(deps: Pick<AppDeps, 'mailer'>, to: string[], subject: string, text: string, teamId: string, kind: string) {
-  for (const address of to) {
-    try {
-      await deps.mailer.send({ to: address, subject, text, teamId, kind });
-    } catch (err) {
-      console.error(`[fits] could not send ${kind} mail to ${address}:`, err);
-    }
-  }
-}
-
 export async function notifyAwaitingReview(deps: Pick<AppDeps, 'db' | 'mailer' | 'config'>, ctx: FitMailContext, runByUserId: string) {
-  const reviewers = await deps.db
-    .select({ email: users.email })
-    .from(memberships)
-    .innerJoin(users, eq(users.id, memberships.userId))
-    .where(
-      and(
-        eq(memberships.teamId, ctx.teamId),
-        inArray(memberships.role, [...CAN.review]),
-        eq(users.notifyByEmail, true),
-        ne(users.id, runByUserId),
-      ),
-    );
+  const reviewers = await membersInRoles(deps.db, ctx.teamId, CAN.review, runByUserId);
   const text = [
     `A fit of shot "${ctx.shotLabel}" in ${ctx.teamName} is waiting for your review.`,
     '',
@@ -56,9 +38,21 @@ export async function notifyAwaitingReview(deps: Pick<AppDeps, 'db' | 'mailer' |
     '',
     `Open it: ${fitLink(deps.config.publicUrl, ctx.teamId, ctx.fitId)}`,
     '',
-    'You get this because you can review fits. Turn these messages off under your account settings.',
+    'You get this because you can review fits.',
   ].join('\n');
-  await sendAll(deps, reviewers.map((r) => r.email), `Fit awaiting review: ${ctx.shotLabel}`, text, ctx.teamId, 'fit-awaiting-review');
+  await notifyPeople(deps, reviewers, { teamId: ctx.teamId, kind: 'fit-awaiting-review', subject: `Fit awaiting review: ${ctx.shotLabel}`, text });
+}
+
+/** Who prepared the fit's clip: its uploader, its calibrator and whoever marked the track. */
+async function clipPeople(db: AppDeps['db'], fitId: string): Promise<string[]> {
+  const [fit] = await db.select({ clipId: fits.clipId, trackId: fits.trackId, calibrationId: fits.calibrationId }).from(fits).where(eq(fits.id, fitId));
+  if (!fit) return [];
+  const ids: (string | null)[] = [];
+  ids.push(...(await db.select({ id: clips.createdBy }).from(clips).where(eq(clips.id, fit.clipId))).map((r) => r.id));
+  ids.push(...(await db.select({ id: calibrations.createdBy }).from(calibrations).where(eq(calibrations.id, fit.calibrationId))).map((r) => r.id));
+  ids.push(...(await db.select({ id: tracks.markingDoneBy }).from(tracks).where(eq(tracks.id, fit.trackId))).map((r) => r.id));
+  ids.push(...(await db.selectDistinct({ id: marks.updatedBy }).from(marks).where(eq(marks.trackId, fit.trackId))).map((r) => r.id));
+  return ids.filter((id): id is string => !!id);
 }
 
 export async function notifyReviewed(
@@ -69,18 +63,17 @@ export async function notifyReviewed(
   reviewer: { id: string; displayName: string },
   note: string,
 ) {
-  if (!runByUserId || runByUserId === reviewer.id) return;
-  const [runner] = await deps.db.select({ email: users.email, notify: users.notifyByEmail }).from(users).where(eq(users.id, runByUserId));
-  if (!runner || !runner.notify) return;
   const word = decision === 'approve' ? 'approved' : 'rejected';
+  const people = new Set<string>(runByUserId ? [runByUserId] : []);
+  if (decision === 'reject') for (const id of await clipPeople(deps.db, ctx.fitId)) people.add(id);
+  people.delete(reviewer.id);
   const text = [
-    `${reviewer.displayName} ${word} your fit of shot "${ctx.shotLabel}" in ${ctx.teamName}.`,
+    `${reviewer.displayName} ${word} the fit of shot "${ctx.shotLabel}" in ${ctx.teamName}.`,
     '',
     headline(ctx),
-    note ? `\nNote: ${note}\n` : '',
+    note ? `\nReviewer's note: ${note}\n` : '',
+    decision === 'reject' ? 'You get this because you ran the fit, or uploaded, calibrated or marked its clip.\n' : '',
     `Open it: ${fitLink(deps.config.publicUrl, ctx.teamId, ctx.fitId)}`,
-    '',
-    'Turn these messages off under your account settings.',
   ].join('\n');
-  await sendAll(deps, [runner.email], `Fit ${word}: ${ctx.shotLabel}`, text, ctx.teamId, `fit-${word}`);
+  await notifyPeople(deps, [...people], { teamId: ctx.teamId, kind: `fit-${word}`, subject: `Fit ${word}: ${ctx.shotLabel}`, text });
 }

@@ -1,4 +1,5 @@
 import type { Role } from '../../shared/roles';
+import type { NotificationMode } from '../../shared/schemas/notifications';
 
 declare module 'express-session' {
   interface SessionData {
@@ -13,7 +14,7 @@ declare module 'express-session' {
 declare global {
   namespace Express {
     interface Locals {
-      user?: { id: string; email: string; displayName: string; notifyByEmail: boolean };
+      user?: { id: string; email: string; displayName: string; notificationMode: NotificationMode };
       team?: { id: string; name: string; role: Role };
       input?: unknown;
       /** Set for every request (X-Request-Id); a 500's log line and answer name it. */

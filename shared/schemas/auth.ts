@@ -1,6 +1,7 @@
 import { z } from 'zod';
 import { ROLES } from '../roles';
 import { DisplayName, Email, NewPassword, Uuid } from './common';
+import { NotificationMode } from './notifications';
 
 export const SignInBody = z.object({
   email: Email,
@@ -11,7 +12,7 @@ export type SignInBody = z.infer<typeof SignInBody>;
 export const RoleSchema = z.enum(ROLES);
 
 export const MeUpdateBody = z
-  .object({ displayName: DisplayName, notifyByEmail: z.boolean() })
+  .object({ displayName: DisplayName, notificationMode: NotificationMode })
   .partial()
   .refine((v) => Object.keys(v).length > 0, 'Send at least one field to change');
 
@@ -21,7 +22,8 @@ export const Me = z.object({
   id: Uuid,
   email: z.string(),
   displayName: z.string(),
-  notifyByEmail: z.boolean(),
+  /** none, each event, or a daily digest (shared/schemas/notifications.ts). */
+  notificationMode: NotificationMode,
   teams: z.array(TeamSummary),
 });
 export type Me = z.infer<typeof Me>;

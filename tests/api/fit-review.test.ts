@@ -33,10 +33,10 @@ async function userId(email: string) {
   return (await t.deps.db.select({ id: users.id }).from(users).where(eq(users.email, email)))[0].id;
 }
 
-async function addUser(email: string, role: Role, notifyByEmail: boolean) {
+async function addUser(email: string, role: Role, notify: boolean) {
   const [u] = await t.deps.db
     .insert(users)
-    .values({ email, displayName: `Quiet ${role}`, passwordHash: await hashPassword(DEMO_PASSWORD), notifyByEmail })
+    .values({ email, displayName: `Quiet ${role}`, passwordHash: await hashPassword(DEMO_PASSWORD), notificationMode: notify ? 'each' : 'none' })
     .returning({ id: users.id });
   await t.deps.db.insert(memberships).values({ teamId, userId: u.id, role });
 }
@@ -89,7 +89,7 @@ describe('review workflow', () => {
     approved = await runFit(as.tomas!, shot.trackId);
     expect(approved.state).toBe('awaiting-review');
     const mails = await mailTo('fit-awaiting-review');
-    // CAN.review is admin and engineer; the runner (Tomas) and notify_by_email = false users are skipped.
+    // CAN.review is admin and engineer; the runner (Tomas) and notification_mode = 'none' users are skipped.
     expect(mails.map((m) => m.to).sort()).toEqual([demoPerson('engineer').email, demoPerson('admin').email].sort());
     expect(mails[0].text).toContain(`${t.deps.config.publicUrl}/t/${teamId}/fits/${approved.id}`);
     expect(mails.map((m) => m.to)).not.toContain(quietEngineer);

@@ -1,4 +1,4 @@
-import { boolean, pgTable, text, timestamp, uuid } from 'drizzle-orm/pg-core';
+import { pgTable, text, timestamp, uuid } from 'drizzle-orm/pg-core';
 import type { NotificationMode } from '../../../shared/schemas/notifications';
 
 export const users = pgTable('users', {
@@ -7,7 +7,6 @@ export const users = pgTable('users', {
   email: text('email').notNull().unique(),
   displayName: text('display_name').notNull(),
   passwordHash: text('password_hash').notNull(),
-  notifyByEmail: boolean('notify_by_email').notNull().default(true),
   /** none, each (one mail per event) or digest (one mail a day); see server/notifications/. */
   notificationMode: text('notification_mode').$type<NotificationMode>().notNull().default('each'),
   createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),

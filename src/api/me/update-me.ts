@@ -1,11 +1,12 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import type { Me } from '@shared/schemas/auth';
+import type { NotificationMode } from '@shared/schemas/notifications';
 import { apiPatch } from '@/lib/api-client';
 import { meKeys } from '@/api/query-keys';
 
 export interface MeChanges {
   displayName?: string;
-  notifyByEmail?: boolean;
+  notificationMode?: NotificationMode;
 }
 
 export function updateMe(changes: MeChanges): Promise<Me> {
