@@ -1,0 +1,32 @@
+// /api/health is cheap: twenty anonymous callers at once start ffmpeg at most
+// once between them (it is probed at start and then at most once a minute).
+import request from 'supertest';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { FFMPEG_PROBE_INTERVAL_MS, ffmpegProbeCount, primeFfmpegProbe } from '../../server/health/system-status';
+import { createTestApp, type TestApp } from '../support/test-app';
+
+let t: TestApp;
+beforeAll(async () => {
+  t = await createTestApp();
+  await primeFfmpegProbe(); // as server/index.ts does at start
+});
+afterAll(() => t.close());
+
+describe('GET /api/health', () => {
+  it('answers twenty anonymous callers without starting ffmpeg for each', async () => {
+    const before = ffmpegProbeCount();
+    const answers = await Promise.all(Array.from({ length: 20 }, () => request(t.app).get('/api/health')));
+    for (const res of answers) {
+      expect(res.status).toBe(200);
+      expect(res.body).toEqual({ status: 'ok', database: { ok: true }, ffmpeg: { ok: true } });
+    }
+    // At most one background refresh, and only if a minute has passed since the start-up probe.
+    expect(ffmpegProbeCount() - before).toBeLessThanOrEqual(1);
+    expect(FFMPEG_PROBE_INTERVAL_MS).toBe(60_000);
+  });
+
+  it('tells anonymous callers no versions (those are for admins)', async () => {
+    const res = await request(t.app).get('/api/health');
+    expect(JSON.stringify(res.body)).not.toMatch(/version|PostgreSQL \d/i);
+  });
+});
