@@ -9,16 +9,30 @@ import { fits } from '../db/schema/fits';
 import { unprocessable } from '../http/problem';
 import { canonicalJson, inputHash } from './input-hash';
 
-/** fitShot on the stored input; bad input (too few marks, times out of order) becomes a 422 the caller can act on. */
+const NUMERICAL_FAILURE =
+  'The fit failed numerically: the marks and calibration give no finite solution (check the scale reference, the frame rate and marks far outside the picture), so nothing was stored.';
+
+/**
+ * fitShot on the stored input; bad input (too few marks, times out of order)
+ * becomes a 422 the caller can act on, and so does a numerical failure (a
+ * singular system, overflow to Infinity or NaN): input, not the server, is at fault.
+ */
 export function computeFit(snapshot: FitInputSnapshot): FitShotResult {
+  let result: FitShotResult;
   try {
     // Through JSON, exactly as a stored snapshot comes back from the database,
     // so a fresh run and a later reproduction see the same numbers.
-    return fitShot(JSON.parse(JSON.stringify(snapshot.fitInput)));
+    result = fitShot(JSON.parse(JSON.stringify(snapshot.fitInput)));
   } catch (err) {
     if (err instanceof FitInputError) throw unprocessable(`The fit cannot run: ${err.message}.`);
+    if (err instanceof RangeError || /singular|not finite|NaN|Infinity|converge/i.test(String((err as Error)?.message))) {
+      throw unprocessable(NUMERICAL_FAILURE);
+    }
     throw err;
   }
+  const headline = [result.launchSpeedMps.value, result.launchAngleDeg.value, result.rmsResidualM];
+  if (!headline.every(Number.isFinite)) throw unprocessable(NUMERICAL_FAILURE);
+  return result;
 }
 
 /** The numbers a fit is listed and filtered by, copied out of its result. */
