@@ -8,10 +8,40 @@ import { log, run } from './run.mjs';
 
 const sleep = (ms) => new Promise((r) => setTimeout(r, ms));
 
+/**
+ * npm's own record of what it installed (node_modules/.package-lock.json) lists
+ * the same packages as package-lock.json: true after someone's `npm install x`,
+ * which leaves our stamp stale but the tree right.
+ */
+export function installedMatchesLock(root) {
+  try {
+    const read = (file) => JSON.parse(readFileSync(file, 'utf8')).packages ?? {};
+    const lock = read(path.join(root, 'package-lock.json'));
+    const installed = read(path.join(root, 'node_modules', '.package-lock.json'));
+    for (const [name, entry] of Object.entries(lock)) {
+      if (name === '') continue;
+      const got = installed[name];
+      // Optional packages of other platforms are in the lock but never installed.
+      if (!got) {
+        if (entry.optional || entry.devOptional) continue;
+        return false;
+      }
+      if (got.version !== entry.version) return false;
+    }
+    return Object.keys(installed).every((name) => name in lock);
+  } catch {
+    return false;
+  }
+}
+
 function current(root, want) {
   const stamp = path.join(root, 'node_modules', '.arcbench-lock-sha256');
   const have = existsSync(stamp) ? readFileSync(stamp, 'utf8').trim() : '';
-  return have === want && existsSync(path.join(root, 'node_modules', '.bin', 'tsx'));
+  if (!existsSync(path.join(root, 'node_modules', '.bin', 'tsx'))) return false;
+  if (have === want) return true;
+  if (!installedMatchesLock(root)) return false;
+  writeFileSync(stamp, `${want}\n`);
+  return true;
 }
 
 async function withInstallLock(root, fn) {
