@@ -9,7 +9,9 @@ import { clips } from '../db/schema/clips';
 import { fits } from '../db/schema/fits';
 import { marks, tracks } from '../db/schema/marking';
 import { shots, testSeries } from '../db/schema/records';
-import { notFound } from '../http/problem';
+import { forbidden, notFound } from '../http/problem';
+import { OWN_FIT_APPROVAL_REASON } from '../../shared/schemas/team-settings';
+import { teamSettings } from '../teams/team-settings';
 import { buildFitSnapshot } from './build-fit-input';
 import { listShotFits, loadFitDetail } from './fit-view';
 import { notifyAwaitingReview, notifyReviewed, type FitMailContext } from './notify';
@@ -94,6 +96,8 @@ export async function reviewFit(deps: FitDeps, actor: FitActor, fitId: string, b
     if (!row) throw notFound('No such fit in this team.');
     if (row.state === 'awaiting-review') await refreshStaleness(tx, [row]);
     const state = reviewTransition(row.state, body.decision);
+    // Separation of duties: checked after the state, so a frozen fit still answers 409.
+    if (state === 'approved' && row.createdBy === actor.userId && (await teamSettings(tx, actor.teamId)).separateFitApproval) throw forbidden(OWN_FIT_APPROVAL_REASON);
     await tx.update(fits).set({ state, reviewedBy: actor.userId, reviewedAt: new Date(), reviewNote: body.note || null }).where(eq(fits.id, row.id));
     await audit(tx, { teamId: actor.teamId, actorUserId: actor.userId, action: `fit.${state === 'approved' ? 'approve' : 'reject'}`, targetType: 'fit', targetId: row.id, detail: { note: body.note } });
     return row.createdBy;

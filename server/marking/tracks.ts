@@ -5,19 +5,21 @@ import { audit } from '../audit';
 import type { Actor } from '../auth/actor';
 import type { Db } from '../db/client';
 import { marks, tracks } from '../db/schema/marking';
+import { users } from '../db/schema/users';
 import { loadClip, loadTrack } from './scope';
 
 // Tracks: named series of marks on one clip (the projectile, or a muzzle point).
 
 async function trackViews(db: Db, where: SQL): Promise<Track[]> {
   const rows = await db
-    .select({ track: tracks, markCount: count(marks.frameNumber) })
+    .select({ track: tracks, markCount: count(marks.frameNumber), doneBy: { id: users.id, displayName: users.displayName } })
     .from(tracks)
     .leftJoin(marks, eq(marks.trackId, tracks.id))
+    .leftJoin(users, eq(users.id, tracks.markingDoneBy))
     .where(where)
-    .groupBy(tracks.id)
+    .groupBy(tracks.id, users.id)
     .orderBy(asc(tracks.createdAt), asc(tracks.id));
-  return rows.map(({ track, markCount }) => ({
+  return rows.map(({ track, markCount, doneBy }) => ({
     id: track.id,
     clipId: track.clipId,
     teamId: track.teamId,
@@ -25,6 +27,7 @@ async function trackViews(db: Db, where: SQL): Promise<Track[]> {
     kind: track.kind,
     revision: track.revision,
     markCount,
+    markingDone: track.markingDoneAt ? { at: track.markingDoneAt.toISOString(), by: doneBy?.id ? { id: doneBy.id, displayName: doneBy.displayName } : null } : null,
     createdAt: track.createdAt.toISOString(),
   }));
 }

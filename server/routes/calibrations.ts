@@ -6,14 +6,16 @@ import { signedIn, teamRole } from '../auth/access';
 import { actorOf, currentTeam, input } from '../http/input';
 import type { RouteTable } from '../http/route-table';
 import { validate } from '../http/validate';
-import { calibrateClip, clipCalibrations, currentClipCalibration } from '../marking/calibrations';
+import { clipCalibrations, currentClipCalibration } from '../marking/calibrations';
+import { calibrateAndHandOff } from '../marking/hand-offs';
 
 /**
  * Calibration versions of a clip: scale reference, origin, level and optional
  * plane correction. Never edited in place: each change is a new version, so a
  * fit can always say which calibration its metres came from.
  */
-export function calibrationRoutes(api: RouteTable, { db }: AppDeps) {
+export function calibrationRoutes(api: RouteTable, deps: AppDeps) {
+  const { db } = deps;
   const base = '/api/teams/:teamId/clips/:clipId/calibrations';
   api.get(base, 'All calibration versions of a clip, newest first', signedIn, teamRole(CAN.read), validate({ params: ClipParams }), list);
   api.get(`${base}/current`, 'The clip’s current calibration (null when uncalibrated)', signedIn, teamRole(CAN.read), validate({ params: ClipParams }), current);
@@ -31,6 +33,6 @@ export function calibrationRoutes(api: RouteTable, { db }: AppDeps) {
 
   async function create(_req: Request, res: Response) {
     const { params, body } = input(res, { params: ClipParams, body: CalibrationCreateBody });
-    res.status(201).json(await calibrateClip(db, actorOf(res), params.clipId, body));
+    res.status(201).json(await calibrateAndHandOff(deps, actorOf(res), params.clipId, body));
   }
 }

@@ -20,6 +20,8 @@ import { frameSnapRoutes } from './frame-snap';
 import { fitRoutes } from './fits';
 import { presetRoutes } from './presets';
 import { autoMarkRoutes } from './auto-mark';
+import { teamSettingsRoutes } from './team-settings';
+import { workQueueRoutes } from './work-queues';
 
 /** Each resource declares its routes in its own file; this is the order they are mounted. */
 export function registerAllRoutes(api: RouteTable, deps: AppDeps): void {
@@ -27,6 +29,8 @@ export function registerAllRoutes(api: RouteTable, deps: AppDeps): void {
   openApiRoutes(api.section('meta'), deps);
   authRoutes(api.section('auth'), deps);
   teamRoutes(api.section('teams'), deps);
+  teamSettingsRoutes(api.section('teams'), deps);
+  workQueueRoutes(api.section('teams'), deps);
   memberRoutes(api.section('members'), deps);
   invitationRoutes(api.section('invitations'), deps);
   outboxRoutes(api.section('mail'), deps);

@@ -1,21 +1,24 @@
 import type { Request, Response } from 'express';
 import { CAN } from '../../shared/roles';
-import { ClipParams, TrackCreateBody, TrackParams, TrackUpdateBody } from '../../shared/schemas/marking';
+import { ClipParams, MarkingDoneBody, TrackCreateBody, TrackParams, TrackUpdateBody } from '../../shared/schemas/marking';
 import type { AppDeps } from '../app-deps';
 import { signedIn, teamRole } from '../auth/access';
 import { actorOf, currentTeam, input } from '../http/input';
 import type { RouteTable } from '../http/route-table';
 import { validate } from '../http/validate';
 import { clipTracks, createTrack, deleteTrack, getTrack, updateTrack } from '../marking/tracks';
+import { setMarkingDone } from '../marking/hand-offs';
 
 /** Tracks: named series of marks on one clip (the projectile, or a muzzle point). */
-export function trackRoutes(api: RouteTable, { db }: AppDeps) {
+export function trackRoutes(api: RouteTable, deps: AppDeps) {
+  const { db } = deps;
   const clipBase = '/api/teams/:teamId/clips/:clipId/tracks';
   const base = '/api/teams/:teamId/tracks/:trackId';
   api.get(clipBase, 'Tracks of a clip, oldest first', signedIn, teamRole(CAN.read), validate({ params: ClipParams }), list);
   api.post(clipBase, { summary: 'Start a track on a clip', status: 201 }, signedIn, teamRole(CAN.mark), validate({ params: ClipParams, body: TrackCreateBody }), create);
   api.get(base, 'One track', signedIn, teamRole(CAN.read), validate({ params: TrackParams }), getOne);
   api.patch(base, 'Rename a track or change its kind', signedIn, teamRole(CAN.mark), validate({ params: TrackParams, body: TrackUpdateBody }), update);
+  api.post(`${base}/marking-done`, 'Hand the track to the engineers (done: true) or take it back (done: false); engineers are told', signedIn, teamRole(CAN.mark), validate({ params: TrackParams, body: MarkingDoneBody }), markingDone);
   api.delete(base, { summary: 'Delete a track and its marks', status: 204 }, signedIn, teamRole(CAN.mark), validate({ params: TrackParams }), remove);
 
   async function list(_req: Request, res: Response) {
@@ -36,6 +39,11 @@ export function trackRoutes(api: RouteTable, { db }: AppDeps) {
   async function update(_req: Request, res: Response) {
     const { params, body } = input(res, { params: TrackParams, body: TrackUpdateBody });
     res.json(await updateTrack(db, actorOf(res), params.trackId, body));
+  }
+
+  async function markingDone(_req: Request, res: Response) {
+    const { params, body } = input(res, { params: TrackParams, body: MarkingDoneBody });
+    res.json(await setMarkingDone(deps, actorOf(res), params.trackId, body));
   }
 
   async function remove(_req: Request, res: Response) {

@@ -148,9 +148,14 @@ export const Track = z.object({
   /** Bumped by every mark write on the track; mark revisions are drawn from it. */
   revision: z.number().int(),
   markCount: z.number().int(),
+  /** Set when a frame marker handed the track to the engineers (hand-offs); null while marking goes on. */
+  markingDone: z.object({ at: z.string(), by: PersonRef.nullable() }).nullable(),
   createdAt: z.string(),
 });
 export type Track = z.infer<typeof Track>;
+/** done = true hands the track to the engineers; false takes it back for more marking. */
+export const MarkingDoneBody = z.object({ done: z.boolean() });
+export type MarkingDoneBody = z.infer<typeof MarkingDoneBody>;
 export const TrackList = z.object({ tracks: z.array(Track) });
 export type TrackList = z.infer<typeof TrackList>;
 

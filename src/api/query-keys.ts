@@ -25,6 +25,14 @@ export const teamKeys = {
   detail: (teamId: string) => [...team(teamId), 'team'] as const,
 };
 
+export const teamSettingsKeys = {
+  all: (teamId: string) => [...team(teamId), 'settings'] as const,
+};
+
+export const workQueueKeys = {
+  all: (teamId: string) => [...team(teamId), 'work-queues'] as const,
+};
+
 export const memberKeys = {
   all: (teamId: string) => [...team(teamId), 'members'] as const,
 };

@@ -1,6 +1,6 @@
 import type { ReactNode } from 'react';
 import { Link } from 'react-router';
-import { ROLE_DUTIES, ROLE_LABELS, type Role } from '@shared/roles';
+import { CAN, ROLE_DUTIES, ROLE_LABELS, type Role } from '@shared/roles';
 import { Badge } from '@/components/ui/badge';
 import { Card } from '@/components/ui/card';
 import { FormError } from '@/components/ui/form-error';
@@ -8,6 +8,11 @@ import { KeyValueList } from '@/components/ui/key-value-list';
 import { PageHeader } from '@/components/ui/page-header';
 import { useCurrentTeam } from '@/lib/use-current-team';
 import { useTeam } from '@/api/teams/get-team';
+import { useWorkQueues } from '@/api/work-queues/get-work-queues';
+import { PresetTrendsCard } from './preset-trends-card';
+import { RecentActivityCard } from './recent-activity-card';
+import { TeamRulesCard } from './team-rules-card';
+import { WorkQueuesCard } from './work-queues-card';
 
 /** A shortcut on the team home; the router supplies the list (src/app/team-home-slots.ts). */
 export interface TeamHomeLink {
@@ -35,6 +40,7 @@ const visibleTo = (role: Role) => (item: { roles?: readonly Role[] }) => !item.r
 export function TeamHomePage({ links, panels }: TeamHomePageProps) {
   const { teamId, team, role } = useCurrentTeam();
   const detail = useTeam(teamId);
+  const work = useWorkQueues(teamId);
   const myLinks = links.filter(visibleTo(role));
   const myPanels = panels.filter(visibleTo(role));
 
@@ -43,6 +49,10 @@ export function TeamHomePage({ links, panels }: TeamHomePageProps) {
       <PageHeader eyebrow="Team home" title={team.name} subtitle={team.siteName ?? undefined} />
       <div className="grid gap-5 lg:grid-cols-[minmax(0,1fr)_20rem]">
         <div className="flex min-w-0 flex-col gap-5">
+          <FormError error={work.error} />
+          {work.data && role !== 'viewer' && <WorkQueuesCard queues={work.data.queues} role={role} />}
+          {work.data && <RecentActivityCard teamId={teamId} activity={work.data.activity} />}
+          {work.data && <PresetTrendsCard trends={work.data.trends} />}
           <Card title="What you can do here">
             {myLinks.length === 0 ? (
               <p className="text-body text-ink-soft">Nothing to start yet.</p>
@@ -88,6 +98,7 @@ export function TeamHomePage({ links, panels }: TeamHomePageProps) {
               ]}
             />
           </Card>
+          <TeamRulesCard teamId={teamId} canChange={(CAN.manageMembers as readonly Role[]).includes(role)} />
         </div>
       </div>
     </>

@@ -6,14 +6,18 @@ import { cx } from '@/components/ui/cx';
 import type { Editor } from '../editor/editor-store';
 import type { TrackKind } from '../editor/types';
 import { useEditor } from '../hooks/use-editor';
+import { MarkingDoneControl } from './marking-done-control';
 
 interface TracksPanelProps {
   editor: Editor;
   onAdd: (kind: TrackKind) => Promise<unknown>;
   adding: boolean;
+  /** For the hand-off control of the active track; left out, no control shows. */
+  teamId?: string;
+  clipId?: string;
 }
 
-export function TracksPanel({ editor, onAdd, adding }: TracksPanelProps) {
+export function TracksPanel({ editor, onAdd, adding, teamId, clipId }: TracksPanelProps) {
   const tracks = useEditor(editor, (s) => s.tracks);
   const active = useEditor(editor, (s) => s.activeTrackId);
   const marksByTrack = useEditor(editor, (s) => s.marksByTrack);
@@ -53,6 +57,7 @@ export function TracksPanel({ editor, onAdd, adding }: TracksPanelProps) {
         </div>
       )}
       {error && <p role="alert" className="mt-2 text-micro text-alert">{error}</p>}
+      {teamId && clipId && <MarkingDoneControl teamId={teamId} clipId={clipId} trackId={active} canMark={canMark} />}
     </Card>
   );
 }

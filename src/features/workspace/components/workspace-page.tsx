@@ -142,7 +142,7 @@ function Workspace({ teamId, clipId }: { teamId: string; clipId: string }) {
           <SaveStatus saving={saving} />
         </div>
         <aside className="flex flex-col gap-3" aria-label="Panels">
-          <TracksPanel editor={editor} onAdd={addTrack} adding={data.createTrack.isPending} />
+          <TracksPanel editor={editor} onAdd={addTrack} adding={data.createTrack.isPending} teamId={teamId} clipId={clipId} />
           <AutoMarkPanel teamId={teamId} auto={auto} review={review} threshold={threshold} canSetThreshold={can(CAN.runFits)} />
           <CalibrationCard editor={editor} teamId={teamId} clipId={clipId} saved={data.savedCalibration} transform={transformResult} />
           <PreviewLegend preview={preview} markCount={markCount} calibrated={!!transform} />
