@@ -3,14 +3,18 @@
 // the level (roll). Each row gives the standard uncertainty it puts on the
 // headline launch speed, launch angle and on k (Cd follows k one to one).
 //
-// - plane offset: a pure change of scale (plane-offset.ts), so like the scale
-//   row: speed and k by the relative uncertainty, the angle not at all;
+// - plane offset: a change of scale (plane-offset.ts). With gravity fixed a
+//   scaled path is the path under a scaled g, so the fit moves the angle and k
+//   as well as the speed: propagated as a shift like the others (the same rule
+//   serves the scale reference's own row, scaleRow below);
 // - level: every mark turned about the origin by σ_roll (roll-uncertainty.ts),
 //   propagated through the fits to first order (systematic-shift.ts);
 // - lens: each independent 1σ step of the coefficients moves the marks by a
 //   pattern computed from the pixels (lens-shifts.ts), propagated the same way.
 import type { LeastSquaresResult } from './least-squares';
-import { combineShifts, dragFitShift, dragFreeShift, rollMarkShift, type HeadlineShift, type MarkShift } from './systematic-shift';
+import {
+  combineShifts, dragFitShift, dragFreeShift, rollMarkShift, scaleMarkShift, type HeadlineShift, type MarkShift,
+} from './systematic-shift';
 import type { FitMark } from './types';
 
 export interface CameraUncertainties {
@@ -22,7 +26,7 @@ export interface CameraUncertainties {
   lensShifts?: MarkShift[];
 }
 
-export type CameraSource = 'lens' | 'plane offset' | 'level';
+export type CameraSource = 'lens' | 'plane offset' | 'level' | 'scale';
 
 export interface CameraRow {
   source: CameraSource;
@@ -47,6 +51,12 @@ export interface CameraBudgetInput {
   camera: CameraUncertainties;
 }
 
+/** A row for a source that acts as a change of scale with relative standard uncertainty rel. */
+export function scaleLikeRow(input: CameraBudgetInput, source: CameraSource, rel: number): CameraRow {
+  const c = combineShifts([responseTo(input, scaleMarkShift(input.marks, rel))]);
+  return { source, ...c, speedRel: rel };
+}
+
 function responseTo(input: CameraBudgetInput, shift: MarkShift): HeadlineShift {
   const drag = dragFitShift(input.dragFit, input.marks, shift);
   if (input.dragResolved) return drag;
@@ -64,14 +74,7 @@ export function cameraRows(input: CameraBudgetInput): CameraRow[] {
     rows.push({ source: 'lens', ...c, speedRel });
   }
   if (camera.planeOffsetRel !== undefined && camera.planeOffsetRel > 0) {
-    const rel = camera.planeOffsetRel;
-    rows.push({
-      source: 'plane offset',
-      launchSpeedMps: Math.abs(input.headlineSpeedMps) * rel,
-      launchAngleDeg: 0,
-      dragK_perM: Math.abs(input.dragK_perM) * rel,
-      speedRel: rel,
-    });
+    rows.push(scaleLikeRow(input, 'plane offset', camera.planeOffsetRel));
   }
   if (camera.rollSigmaRad !== undefined && camera.rollSigmaRad > 0) {
     const c = combineShifts([responseTo(input, rollMarkShift(input.marks, camera.rollSigmaRad))]);

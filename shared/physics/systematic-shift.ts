@@ -84,6 +84,17 @@ export function rollMarkShift(marks: readonly FitMark[], rollSigmaRad: number): 
   return { dxM: marks.map((m) => m.yM * rollSigmaRad), dyM: marks.map((m) => -m.xM * rollSigmaRad) };
 }
 
+/**
+ * The 1σ shift of a scale uncertainty (relative, e.g. 0.004): every mark's
+ * distance from the origin grows by that share. With gravity fixed, a scaled
+ * path is not just a bigger copy of the fitted one (it is the path under a
+ * scaled g), so the fit answers by moving the angle and k a little as well as
+ * the speed: propagating the shift catches all three.
+ */
+export function scaleMarkShift(marks: readonly FitMark[], relSigma: number): MarkShift {
+  return { dxM: marks.map((m) => m.xM * relSigma), dyM: marks.map((m) => m.yM * relSigma) };
+}
+
 /** A source's standard uncertainty on each headline number: root sum of squares over its independent components. */
 export function combineShifts(shifts: readonly HeadlineShift[]): HeadlineShift {
   const rss = (pick: (s: HeadlineShift) => number) => Math.sqrt(shifts.reduce((a, s) => a + pick(s) ** 2, 0));
