@@ -2,6 +2,8 @@ import { boolean, doublePrecision, index, integer, jsonb, pgTable, primaryKey, r
 import type { PixelPoint } from '../../../shared/geometry/points';
 import type { MarkSource } from '../../../shared/schemas/auto-mark';
 import type { Downrange, TrackKind } from '../../../shared/schemas/marking';
+import type { LensCorrection } from '../../../shared/schemas/camera';
+import type { PlaneOffsetInput } from '../../../shared/geometry/plane-offset';
 import { clips } from './clips';
 import { teams } from './teams';
 import { users } from './users';
@@ -48,6 +50,15 @@ export const calibrations = pgTable(
     /** Roll actually used (from the line or as stated), degrees CCW on screen. */
     rollDeg: doublePrecision('roll_deg').notNull(),
     planeCorrection: jsonb('plane_correction').$type<StoredPlaneCorrection | null>(),
+    /** Lens correction (model, coefficients, their uncertainties, fit residual, the clicked edges); null: an ideal lens. */
+    lens: jsonb('lens').$type<LensCorrection | null>(),
+    /** Camera-to-plane distance and the scale reference's offset from it, with tolerances; null: none stated. */
+    planeOffset: jsonb('plane_offset').$type<PlaneOffsetInput | null>(),
+    /** Click σ of the level line's end points (line) / ± tolerance of the stated roll (angle). */
+    levelEndpointSigmaPx: doublePrecision('level_endpoint_sigma_px'),
+    rollTolDeg: doublePrecision('roll_tol_deg'),
+    /** Standard uncertainty of roll_deg, radians. */
+    rollStdUncertaintyRad: doublePrecision('roll_std_uncertainty_rad').notNull().default(0),
     pixelsPerMetre: doublePrecision('pixels_per_metre').notNull(),
     scaleRelUncertainty: doublePrecision('scale_rel_uncertainty').notNull(),
     note: text('note'),
