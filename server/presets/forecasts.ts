@@ -1,4 +1,5 @@
 import type { z } from 'zod';
+import { formatPressureKPa } from '../../shared/fits/format';
 import { forecastShot } from '../../shared/physics/forecast';
 import { measuredSpeed } from '../../shared/presets/fit-values';
 import { keepOutDistance } from '../../shared/presets/keep-out';
@@ -33,10 +34,10 @@ export async function forecastFromVersion(db: Db, teamId: string, body: z.output
   const result = forecastFromPreset({ values: valuesOf(v), launcher: l.launcher, projectile: l.projectile, conditions: body });
   const cautions = [...result.cautions];
   if (body.pressurePa < l.preset.pressureMinPa || body.pressurePa > l.preset.pressureMaxPa) {
-    cautions.unshift(`The pressure is outside the preset’s range (${l.preset.pressureMinPa}–${l.preset.pressureMaxPa} Pa); its values were not established there.`);
+    cautions.unshift(`The pressure is outside the preset’s range (${formatPressureKPa(l.preset.pressureMinPa, { withUnit: false })}–${formatPressureKPa(l.preset.pressureMaxPa)}); its values were not established there.`);
   }
   if (l.launcher.maxWorkingPressurePa !== null && body.pressurePa > l.launcher.maxWorkingPressurePa) {
-    cautions.unshift(`The pressure is above the launcher’s maximum working pressure (${l.launcher.maxWorkingPressurePa} Pa). Do not charge the launcher to it.`);
+    cautions.unshift(`The pressure is above the launcher’s maximum working pressure (${formatPressureKPa(l.launcher.maxWorkingPressurePa)}). Do not charge the launcher to it.`);
   }
   return {
     preset: { id: l.preset.id, name: l.preset.name },

@@ -2,6 +2,7 @@
 // assumption) and publishing a new version pooled from approved fits. Used by
 // the routes and by the demo seed, so both follow the same rules.
 import { and, eq, sql } from 'drizzle-orm';
+import { formatPressureKPa } from '../../shared/fits/format';
 import { HANDBOOK_DRAG } from '../../shared/physics/handbook-drag';
 import { poolInverseVariance, type PooledValue } from '../../shared/presets/pool';
 import { launcherModelFor, missingGeometry } from '../../shared/presets/launcher-speed';
@@ -34,7 +35,7 @@ export async function createPreset(db: Db, teamId: string, userId: string | null
   const missing = missingGeometry(launcher);
   if (missing.length > 0) throw unprocessable(`A preset forecasts speed from the launcher model, which needs the ${missing.join(' and ')}; add them to “${launcher.name}” first.`);
   if (launcher.maxWorkingPressurePa !== null && body.pressureMaxPa > launcher.maxWorkingPressurePa) {
-    throw unprocessable(`The preset’s maximum pressure is above the launcher’s maximum working pressure (${launcher.maxWorkingPressurePa} Pa).`, {
+    throw unprocessable(`The preset’s maximum pressure is above the launcher’s maximum working pressure (${formatPressureKPa(launcher.maxWorkingPressurePa)}).`, {
       errors: [{ path: 'body.pressureMaxPa', message: 'is above the launcher’s maximum working pressure' }],
     });
   }

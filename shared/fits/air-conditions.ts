@@ -9,6 +9,7 @@ import {
   WEATHER_READING_SIGMAS as CONDITION_SIGMAS,
 } from '../defaults';
 import { SEA_LEVEL_TEMPERATURE_K, ZERO_CELSIUS_K } from '../physics/constants';
+import { formatPressureKPa } from './format';
 
 export interface ShotConditions {
   airTempC: number | null;
@@ -50,8 +51,8 @@ export function airForFit(c: ShotConditions): AirForFit {
     densityKgM3: value,
     densitySigmaKgM3: sigma,
     temperatureK: c.airTempC + ZERO_CELSIUS_K,
-    source: `humid-air ideal-gas mixture (Buck 1981 vapour pressure) from ${c.airTempC} °C, ${c.stationPressurePa.toFixed(0)} Pa` +
+    source: `humid-air ideal-gas mixture (Buck 1981 vapour pressure) from ${c.airTempC} °C, ${formatPressureKPa(c.stationPressurePa)}` +
       (rhMeasured ? `, ${rhPct} %RH` : ', humidity not recorded (50 %RH assumed)'),
-    sigmaSource: `propagated from ±${CONDITION_SIGMAS.temperatureK} K, ±${CONDITION_SIGMAS.pressurePa} Pa, ±${rhSigma} %RH (common practice for a field weather meter)`,
+    sigmaSource: `propagated from ±${CONDITION_SIGMAS.temperatureK} K, ±${CONDITION_SIGMAS.pressurePa / 1000} kPa, ±${rhSigma} %RH (common practice for a field weather meter)`,
   };
 }

@@ -10,6 +10,7 @@ import { bestElevationForRange, forecastShot, vacuumForecast } from '../physics/
 import type { Band, ForecastResponse, PresetLauncherModel, SweepRow } from '../schemas/presets';
 import { modelSpeedMps, muzzleSpeedFromEfficiency, type LauncherGeometry } from './launcher-speed';
 import { mulberry32, normalDeviates } from '../random/prng';
+import { formatPressureKPa } from '../fits/format';
 
 export interface PresetValues {
   dragCoefficient: number;
@@ -43,7 +44,7 @@ export const SWEEP_ELEVATIONS_DEG = Array.from({ length: 16 }, (_, i) => 5 + 5 *
 
 export function airDensityFor(c: Pick<ForecastConditions, 'airTempC' | 'stationPressurePa' | 'relativeHumidityPct'>) {
   const densityKgM3 = humidAirDensityKgM3({ temperatureC: c.airTempC, pressurePa: c.stationPressurePa, relativeHumidity: c.relativeHumidityPct / 100 });
-  return { densityKgM3, source: `humid air (Buck 1981 vapour pressure) at ${c.airTempC} °C, ${c.stationPressurePa} Pa, ${c.relativeHumidityPct} %RH` };
+  return { densityKgM3, source: `humid air (Buck 1981 vapour pressure) at ${c.airTempC} °C, ${formatPressureKPa(c.stationPressurePa)}, ${c.relativeHumidityPct} %RH` };
 }
 
 /** The launch state and drag constant for one (Cd, efficiency) pair. */

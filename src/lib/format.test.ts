@@ -3,6 +3,7 @@ import type { Estimate } from '@shared/physics/types';
 import {
   formatEstimate, formatEstimateInterval, formatNumber, formatPercent, formatPlusMinus, formatQuantity, formatUncertainty, formatWithInterval,
 } from './format';
+import { formatDate, formatDateTime, formatPressure, formatRange } from './format';
 
 describe('formatNumber trim', () => {
   it('drops padding zeros only when asked', () => {
@@ -76,5 +77,50 @@ describe('intervals', () => {
   it('prints confidence levels without trailing zeros', () => {
     expect(formatPercent(0.95)).toBe('95%');
     expect(formatPercent(0.999)).toBe('99.9%');
+  });
+});
+
+describe('formatRange', () => {
+  it('gives a narrow band enough digits that its ends differ', () => {
+    // The forecast band that read "23.5–23.5 m/s".
+    expect(formatRange(23.4612, 23.5388, 'm/s')).toBe('23.461\u201323.539\u00a0m/s');
+    expect(formatRange(23.46, 23.54, 'm/s')).toBe('23.460\u201323.540\u00a0m/s');
+    expect(formatRange(180.2, 215.9, 'm')).toBe('180.2\u2013215.9\u00a0m');
+    expect(formatRange(1.234, 1.234, 's', 2)).toBe('1.23\u00a0s');
+  });
+});
+
+describe('dates: one format, through Intl, in the reader’s locale', () => {
+  it('writes a calendar day as that day in any time zone and locale', () => {
+    expect(formatDate('2026-04-18', 'en-GB')).toBe('18 Apr 2026');
+    expect(formatDate('2026-04-18', 'en-US')).toBe('Apr 18, 2026');
+    expect(formatDate('2026-04-18', 'de-DE')).toBe('18. Apr. 2026');
+    expect(formatDateTime('not a date')).toBe('—');
+  });
+
+  it('no page formats a date by itself (toLocaleString, raw ISO text): all go through src/lib/format.ts', async () => {
+    const { readdirSync, readFileSync } = await import('node:fs');
+    const { join } = await import('node:path');
+    const root = join(__dirname, '..');
+    const offenders: string[] = [];
+    const walk = (dir: string) => {
+      for (const entry of readdirSync(dir, { withFileTypes: true })) {
+        const path = join(dir, entry.name);
+        if (entry.isDirectory()) walk(path);
+        else if (/\.tsx?$/.test(entry.name) && !/\.test\.tsx?$/.test(entry.name) && !path.endsWith(join('lib', 'format.ts'))) {
+          readFileSync(path, 'utf8')
+            .split('\n')
+            .forEach((line, i) => {
+              if (/toLocale(Date|Time)?String\(|new Intl\.DateTimeFormat/.test(line)) offenders.push(`${path.slice(root.length + 1)}:${i + 1}`);
+            });
+        }
+      }
+    };
+    walk(root);
+    expect(offenders).toEqual([]);
+  });
+
+  it('pressure is written in kPa', () => {
+    expect(formatPressure(101_325)).toBe('101.3\u00a0kPa');
   });
 });

@@ -75,6 +75,20 @@ export function formatWithInterval(value: number, unit: string, interval: Interv
   return `${main} (${formatPercent(interval.level)}: ${low}${EN_DASH}${high})`;
 }
 
+/**
+ * "23.46–23.54 m/s": a band with enough decimals that its two ends differ (two significant
+ * digits of its width, as for an uncertainty, GUM §7.2.6), and at least `minDecimals`.
+ * A band of zero width is written as the one value.
+ */
+export function formatRange(low: number, high: number, unit = '', minDecimals = 1): string {
+  const width = Math.abs(high - low);
+  const decimals = width > 0 && Number.isFinite(width) ? Math.min(6, Math.max(minDecimals, 1 - Math.floor(Math.log10(width)))) : minDecimals;
+  const lo = formatNumber(low, { decimals });
+  const hi = formatNumber(high, { decimals });
+  const body = lo === hi ? lo : `${lo}${EN_DASH}${hi}`;
+  return unit ? `${body}${NBSP}${unit}` : body;
+}
+
 /** "23.41 ± 0.31 m/s" for a symmetric uncertainty. */
 export function formatPlusMinus(value: number, halfWidth: number, unit = '', options: NumberFormat = {}): string {
   const decimals = options.decimals ?? decimalsOf(formatNumber(value, options));
@@ -103,12 +117,20 @@ export function formatDateTime(iso: string | Date | null | undefined): string {
   return new Intl.DateTimeFormat(undefined, { day: 'numeric', month: 'short', year: 'numeric', hour: '2-digit', minute: '2-digit' }).format(date);
 }
 
-export function formatDate(iso: string | Date | null | undefined): string {
+/**
+ * A day in the reader's locale: "2 Dec 2026". A calendar date without a time ("2026-04-18", a series'
+ * test date) is that day everywhere, so it is read and written in UTC and never slips to the day before.
+ */
+export function formatDate(iso: string | Date | null | undefined, locale?: string): string {
   if (!iso) return '—';
-  const date = typeof iso === 'string' ? new Date(iso) : iso;
+  const calendarDay = typeof iso === 'string' && /^\d{4}-\d{2}-\d{2}$/.test(iso);
+  const date = typeof iso === 'string' ? new Date(calendarDay ? `${iso}T00:00:00Z` : iso) : iso;
   if (Number.isNaN(date.getTime())) return '—';
-  return new Intl.DateTimeFormat(undefined, { day: 'numeric', month: 'short', year: 'numeric' }).format(date);
+  return new Intl.DateTimeFormat(locale, { day: 'numeric', month: 'short', year: 'numeric', ...(calendarDay ? { timeZone: 'UTC' } : {}) }).format(date);
 }
+
+/** Pressure, the one way the app writes it: kPa ("420 kPa", "101.3 kPa"); the same rule as the PDF and exports. */
+export const formatPressure = (pa: number | null | undefined): string => fitFormat.formatPressureKPa(pa);
 
 /** Bytes for upload sizes: "48.2 MB" (decimal prefixes, as disks and browsers show them). */
 export function formatBytes(bytes: number): string {

@@ -5,6 +5,7 @@ import { errorMessage } from '@/components/ui/form-error';
 import { PageHeader } from '@/components/ui/page-header';
 import { SafetyNote } from '@/components/ui/safety-note';
 import { LoadingBlock } from '@/components/ui/spinner';
+import { formatDateTime } from '@/lib/format';
 import { useCurrentTeam } from '@/lib/use-current-team';
 import { fitExportUrl } from '@/api/fits/fit-exports';
 import { useFit } from '@/api/fits/get-fit';
@@ -44,7 +45,7 @@ export function FitPage() {
       <PageHeader
         eyebrow={<Link to={`/t/${teamId}/shots/${fit.shotId}/fits`}>{fit.shot.seriesName ?? 'Shot'} · fits of {fit.shot.label}</Link>}
         title={`Fit of ${fit.shot.label}`}
-        subtitle={`Run ${new Date(fit.createdAt).toLocaleString()} by ${fit.createdBy?.displayName ?? 'unknown'} · launcher ${fit.shot.launcherName ?? '—'} · projectile ${fit.shot.projectileName ?? '—'}`}
+        subtitle={`Run ${formatDateTime(fit.createdAt)} by ${fit.createdBy?.displayName ?? 'unknown'} · launcher ${fit.shot.launcherName ?? '—'} · projectile ${fit.shot.projectileName ?? '—'}`}
         actions={<FitStateBadge state={fit.state} inputsChanged={fit.staleness.inputsChanged} />}
       />
       {fit.staleness.message && (

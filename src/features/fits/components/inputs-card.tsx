@@ -1,7 +1,7 @@
 import type { FitDetail } from '@shared/schemas/fits';
 import { Card } from '@/components/ui/card';
 import { KeyValueList } from '@/components/ui/key-value-list';
-import { formatNumber } from '@/lib/format';
+import { formatNumber, formatPressure } from '@/lib/format';
 import { markCountsLine } from './mark-counts';
 
 const orDash = (v: number | null, digits: number, unit: string) => (v === null ? '—' : `${formatNumber(v, { decimals: digits })} ${unit}`);
@@ -18,7 +18,7 @@ export function InputsCard({ fit }: { fit: FitDetail }) {
           { label: 'Projectile', value: `${s.projectile.name}: ${formatNumber(s.projectile.massKg * 1000, { decimals: 1 })} g, ${formatNumber(s.projectile.diameterM * 1000, { decimals: 1 })} mm` },
           { label: 'Air density', value: `${formatNumber(s.air.densityKgM3, { decimals: 4 })} kg/m³`, numeric: true },
           { label: 'Air density from', value: <span className="text-micro">{s.air.source}</span> },
-          { label: 'Conditions', value: `${orDash(s.shot.airTempC, 1, '°C')}, ${orDash(s.shot.stationPressurePa === null ? null : s.shot.stationPressurePa / 1000, 2, 'kPa')}, ${orDash(s.shot.relativeHumidityPct, 0, '%RH')}` },
+          { label: 'Conditions', value: `${orDash(s.shot.airTempC, 1, '°C')}, ${formatPressure(s.shot.stationPressurePa)}, ${orDash(s.shot.relativeHumidityPct, 0, '%RH')}` },
           { label: 'Calibration', value: `version ${s.calibration.version} · ${formatNumber(s.calibration.pixelsPerMetre, { decimals: 2 })} px/m · scale ±${((s.calibration.scaleRelUncertainty ?? 0) * 100).toFixed(2)} %` },
           { label: 'Marks', value: `${m.length} marks, ${m[0]?.tS.toFixed(4)} s to ${m[m.length - 1]?.tS.toFixed(4)} s (track revision ${s.track.marksRevision})` },
           ...(how ? [{ label: 'How marked', value: how }] : []),

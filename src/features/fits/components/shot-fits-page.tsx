@@ -11,7 +11,7 @@ import { useCurrentTeam } from '@/lib/use-current-team';
 import { useShotFits } from '@/api/fits/get-shot-fits';
 import { useRunFit } from '@/api/fits/run-fit';
 import { FitStateBadge } from './fit-state-badge';
-import { formatNumber } from '@/lib/format';
+import { formatDateTime, formatNumber } from '@/lib/format';
 
 /** A shot's fits, newest first, and the place to run a new one from a marked track. */
 export function ShotFitsPage() {
@@ -92,7 +92,7 @@ function FitRow({ teamId, fit }: { teamId: string; fit: FitSummary }) {
     <tr className="border-t border-line/70">
       <td className="px-3 py-2">
         <Link className="font-medium text-signal-dark underline" to={`/t/${teamId}/fits/${fit.id}`}>
-          {new Date(fit.createdAt).toLocaleString()}
+          {formatDateTime(fit.createdAt)}
         </Link>
         <span className="ml-2 text-micro text-ink-faint">{fit.createdBy?.displayName}</span>
       </td>

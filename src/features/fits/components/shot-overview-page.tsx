@@ -8,7 +8,7 @@ import { LoadingBlock } from '@/components/ui/spinner';
 import { useCurrentTeam } from '@/lib/use-current-team';
 import { useShotOverview } from '@/api/fits/get-shot-overview';
 import { FitStateBadge } from './fit-state-badge';
-import { formatNumber } from '@/lib/format';
+import { formatDate, formatNumber } from '@/lib/format';
 
 type Sort = NonNullable<ShotOverviewQuery['sort']>;
 const COLUMNS: { key: Sort | null; label: string; numeric?: boolean }[] = [
@@ -19,7 +19,8 @@ const COLUMNS: { key: Sort | null; label: string; numeric?: boolean }[] = [
   { key: 'status', label: 'Status' },
   { key: 'speed', label: 'Speed (m/s)', numeric: true },
   { key: 'cd', label: 'Cd', numeric: true },
-  { key: 'created', label: 'Recorded' },
+  // The series' test date: the day the shot was fired. The date it was typed in is "Entered" on the shot page.
+  { key: 'created', label: 'Test date' },
 ];
 
 const statusLabel = (s: OverviewStatus) => (s === 'no-fit' ? 'No fit yet' : FIT_STATE_LABELS[s]);
@@ -149,7 +150,7 @@ function OverviewRow({ teamId, row }: { teamId: string; row: ShotOverviewRow }) 
       </td>
       <td className="px-3 py-2 text-right tabular-nums">{row.launchSpeedMps === null ? '—' : formatNumber(row.launchSpeedMps, { decimals: 2 })}</td>
       <td className="px-3 py-2 text-right tabular-nums">{row.dragCoefficient === null ? '—' : formatNumber(row.dragCoefficient, { decimals: 3 })}</td>
-      <td className="px-3 py-2 tabular-nums text-ink-soft">{row.testDate}</td>
+      <td className="px-3 py-2 tabular-nums text-ink-soft">{formatDate(row.testDate)}</td>
     </tr>
   );
 }

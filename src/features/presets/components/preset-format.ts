@@ -1,7 +1,7 @@
-import { formatNumber } from '@/lib/format';
+import { formatNumber, formatPressure } from '@/lib/format';
 
 // Display helpers of the presets pages: pressures in kPa, fractions as percent, Cd to three decimals.
-export const kPa = (pa: number | null | undefined) => (pa === null || pa === undefined ? '—' : `${formatNumber(pa / 1000, { decimals: 0 })}\u00a0kPa`);
+export const kPa = (pa: number | null | undefined) => formatPressure(pa);
 export const cdText = (value: number, std?: number) => (std === undefined ? formatNumber(value, { decimals: 3 }) : `${formatNumber(value, { decimals: 3 })} ± ${formatNumber(std, { decimals: 3 })}`);
 /** Percent with one decimal, or more when the uncertainty would otherwise print as ± 0.0. */
 export const pctText = (value: number, std?: number) => {

@@ -35,7 +35,7 @@ export function SeriesPage() {
             </Link>
           ),
         }),
-        col.accessor('testDate', { header: 'Date', cell: (info) => formatDate(`${info.getValue()}T12:00:00`) }),
+        col.accessor('testDate', { header: 'Date', cell: (info) => formatDate(info.getValue()) }),
         col.accessor('site', { header: 'Site', cell: (info) => info.getValue() ?? '—' }),
         col.accessor('shotCount', { header: 'Shots', meta: { numeric: true } }),
         col.display({

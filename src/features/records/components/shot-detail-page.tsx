@@ -9,7 +9,7 @@ import { FormError } from '@/components/ui/form-error';
 import { KeyValueList } from '@/components/ui/key-value-list';
 import { PageHeader } from '@/components/ui/page-header';
 import { LoadingBlock } from '@/components/ui/spinner';
-import { formatDateTime, formatQuantity } from '@/lib/format';
+import { formatDateTime, formatPressure, formatQuantity } from '@/lib/format';
 import { useCurrentTeam } from '@/lib/use-current-team';
 import { useDeleteShot } from '@/api/shots/delete-shot';
 import { useShot } from '@/api/shots/get-shot';
@@ -40,7 +40,7 @@ export function ShotDetailPage({ clipPanel }: ShotDetailPageProps) {
       <PageHeader
         eyebrow={s.seriesName}
         title={`Shot ${s.label}`}
-        subtitle={`Recorded ${formatDateTime(s.createdAt)}`}
+        subtitle={`Entered ${formatDateTime(s.createdAt)}`}
         actions={
           <>
             <ButtonLink to={`/t/${teamId}/shots/${shotId}/fits`}>Fits</ButtonLink>
@@ -61,10 +61,10 @@ export function ShotDetailPage({ clipPanel }: ShotDetailPageProps) {
             items={[
               { label: 'Launcher', value: s.launcherName ?? '—' },
               { label: 'Projectile', value: s.projectileName ?? '—' },
-              { label: 'Chamber pressure', value: formatQuantity(s.chamberPressurePa === null ? null : s.chamberPressurePa / 1000, 'kPa', { decimals: 0 }), numeric: true },
+              { label: 'Chamber pressure', value: formatPressure(s.chamberPressurePa), numeric: true },
               { label: 'Elevation setting', value: formatQuantity(s.elevationDeg, '°', { decimals: 1 }), numeric: true },
               { label: 'Air temperature', value: formatQuantity(s.airTempC, '°C', { decimals: 1 }), numeric: true },
-              { label: 'Station pressure', value: formatQuantity(s.stationPressurePa === null ? null : s.stationPressurePa / 100, 'hPa', { decimals: 1 }), numeric: true },
+              { label: 'Station pressure', value: formatPressure(s.stationPressurePa), numeric: true },
               { label: 'Relative humidity', value: formatQuantity(s.relativeHumidityPct, '%', { decimals: 0 }), numeric: true },
               { label: 'Tape-measured range', value: formatQuantity(s.tapeRangeM, 'm', { decimals: 2 }), numeric: true },
             ]}

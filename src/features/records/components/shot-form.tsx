@@ -9,7 +9,7 @@ import { SelectField } from '@/components/ui/select-field';
 import { TextField } from '@/components/ui/text-field';
 import { TextareaField } from '@/components/ui/textarea-field';
 import { applyApiFieldErrors } from '@/lib/form-errors';
-import { formatQuantity } from '@/lib/format';
+import { formatDate, formatQuantity } from '@/lib/format';
 import { useLaunchers } from '@/api/launchers/list-launchers';
 import { useProjectiles } from '@/api/projectiles/list-projectiles';
 import { useSeriesList } from '@/api/series/list-series';
@@ -45,7 +45,7 @@ export interface ShotFormProps {
 
 const emptyToNull = (v: unknown) => (v === '' || v === undefined ? null : v);
 
-/** Shot record with its conditions. Values go to the API in SI; pressures are typed in kPa and hPa as gauges read them. */
+/** Shot record with its conditions. Values go to the API in SI; pressures are typed in kPa, the one pressure unit of the app. */
 export function ShotForm({ teamId, shot, defaultSeriesId, submitLabel, onSubmit, onCancel }: ShotFormProps) {
   const series = useSeriesList(teamId);
   const launchers = useLaunchers(teamId);
@@ -91,7 +91,7 @@ export function ShotForm({ teamId, shot, defaultSeriesId, submitLabel, onSubmit,
           label="Test series"
           required
           placeholder="Choose a series…"
-          options={(series.data ?? []).map((s) => ({ value: s.id, label: `${s.name} (${s.testDate})` }))}
+          options={(series.data ?? []).map((s) => ({ value: s.id, label: `${s.name} (${formatDate(s.testDate)})` }))}
           error={seriesError}
           {...register('seriesId')}
         />
@@ -141,8 +141,8 @@ export function ShotForm({ teamId, shot, defaultSeriesId, submitLabel, onSubmit,
           control={control}
           name="stationPressurePa"
           label="Station pressure"
-          unit="hPa"
-          scale={100}
+          unit="kPa"
+          scale={1000}
           bounds={BOUNDS.stationPressurePa}
           hint="Barometer at the site, not corrected to sea level."
         />
