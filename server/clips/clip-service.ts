@@ -11,10 +11,11 @@ import { shots } from '../db/schema/records';
 import { HttpProblem, badRequest, conflict, notFound } from '../http/problem';
 import { frameTimestamps, probe } from '../media/ffmpeg';
 import { analyseTimeBase } from '../media/time-base';
-import { clipPrefix } from '../storage/storage';
+import { clipPrefix, isStorageUnavailable } from '../storage/storage';
 import { acceptUpload, type UploadRequest } from './accept-upload';
+import { checkDecodedPixels, type ExtractionLimits } from './extraction-limits';
 import { loadClipView, loadClipViews } from './clip-view';
-import type { ReceivedFile } from './intake';
+import { frameStoreUnavailable, type ReceivedFile } from './intake';
 
 /** A stored JPEG (frame or thumbnail): its key and size name the bytes for good. */
 export interface StoredImage {
@@ -23,7 +24,7 @@ export interface StoredImage {
   open: () => Promise<Readable>;
 }
 
-type ClipDeps = Pick<AppDeps, 'db' | 'storage' | 'jobs'>;
+type ClipDeps = Pick<AppDeps, 'db' | 'storage' | 'jobs'> & { config?: ExtractionLimits };
 
 /** Rewrites the time of each listed frame in one statement (an update joined to two unnested arrays). */
 async function rewriteFrameTimes(tx: Tx, clipId: string, frames: { frameNumber: number; tS: number }[]) {
@@ -37,7 +38,9 @@ async function rewriteFrameTimes(tx: Tx, clipId: string, frames: { frameNumber: 
  * Clips of a shot: upload, time base, frame extraction (queued as a job),
  * re-timing, cancelling and deleting with their files, and the stored images.
  */
-export function clipService({ db, storage, jobs }: ClipDeps) {
+export function clipService({ db, storage, jobs, config }: ClipDeps) {
+  // The pixel cap and team quota (config); refused before anything is decoded.
+  const limits: ExtractionLimits | undefined = config && { maxDecodedPixels: config.maxDecodedPixels, teamStorageQuotaBytes: config.teamStorageQuotaBytes };
   async function findClip(teamId: string, clipId: string) {
     const [row] = await db.select().from(clips).where(and(eq(clips.id, clipId), eq(clips.teamId, teamId)));
     if (!row) throw notFound('No such clip in this team.');
@@ -81,7 +84,7 @@ export function clipService({ db, storage, jobs }: ClipDeps) {
 
     /** Records an uploaded clip and queues its extraction. */
     async upload(file: ReceivedFile, r: UploadRequest): Promise<ClipView> {
-      const clipId = await acceptUpload(db, storage, file, r);
+      const clipId = await acceptUpload(db, storage, file, { ...r, limits: r.limits ?? limits });
       await enqueue(clipId);
       return view(r.teamId, clipId);
     },
@@ -102,6 +105,7 @@ export function clipService({ db, storage, jobs }: ClipDeps) {
       const rateChanged = captureFps !== row.captureFps;
       if (!rangeChanged && !rateChanged) return view(actor.teamId, clipId);
 
+      if (rangeChanged && limits) checkDecodedPixels({ frames: outFrame - inFrame + 1, width: row.width, height: row.height, maxDecodedPixels: limits.maxDecodedPixels });
       if (rangeChanged || row.status !== 'ready') {
         // New frames (or an extraction still to finish): let the job compute everything afresh.
         await db.update(clips).set({ inFrame, outFrame, captureFps, updatedAt: new Date() }).where(eq(clips.id, row.id));
@@ -192,7 +196,9 @@ export function clipService({ db, storage, jobs }: ClipDeps) {
       const row = await findClip(teamId, clipId);
       if (!row.framesPrefix || n >= row.thumbnailCount) throw notFound(`No thumbnail ${n} for this clip.`);
       const key = `${row.framesPrefix}thumbs/thumb-${String(n).padStart(2, '0')}.jpg`;
-      const stat = await storage.stat(key);
+      const stat = await storage.stat(key).catch((err) => {
+        throw isStorageUnavailable(err) ? frameStoreUnavailable() : err;
+      });
       if (!stat) throw notFound(`No thumbnail ${n} for this clip.`);
       return image(key, stat.sizeBytes);
     },
