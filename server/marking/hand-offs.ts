@@ -57,8 +57,8 @@ export async function setMarkingDone(deps: HandOffDeps, actor: Actor, trackId: s
   if (body.done && track.markingDoneAt) return getTrack(db, actor.teamId, trackId);
   if (body.done) {
     const [{ n }] = await db.select({ n: count() }).from(marks).where(eq(marks.trackId, track.id));
-    // Three marks is the least a drag-free fit (a parabola) can be fitted to.
-    if (n < 3) throw unprocessable(`This track has ${n} ${n === 1 ? 'mark' : 'marks'}; mark at least 3 frames before handing it to the engineers.`);
+    // Five marks is the least the fit page will run a fit on.
+    if (n < 5) throw unprocessable(`This track has ${n} ${n === 1 ? 'mark' : 'marks'}; mark at least 5 frames before handing it to the engineers.`);
   }
   await db.transaction(async (tx) => {
     await tx
