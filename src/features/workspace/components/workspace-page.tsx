@@ -29,6 +29,7 @@ import { FrameStage } from './frame-stage';
 import { MarksLedger } from './marks-ledger';
 import { PreviewLegend } from './preview-legend';
 import { SaveStatus } from './save-status';
+import { SkipConfirmNote } from './skip-confirm-note';
 import { ShortcutHelpDialog } from './shortcut-help-dialog';
 import { ToolDialogs } from './tool-dialogs';
 import { ToolPalette } from './tool-palette';
@@ -139,6 +140,7 @@ function Workspace({ teamId, clipId }: { teamId: string; clipId: string }) {
             />
           </div>
           <FrameScrubber editor={editor} captureFps={clip.captureFps} />
+          <SkipConfirmNote editor={editor} />
           <SaveStatus saving={saving} />
         </div>
         <aside className="flex flex-col gap-3" aria-label="Panels">

@@ -125,14 +125,50 @@ describe('editor store', () => {
     expect(editor.getState().frameNumber).toBe(5);
   });
 
-  it('skip drops the mark on this frame and advances', () => {
-    const { editor } = loadedEditor();
-    editor.placeMark({ u: 1, v: 1 });
+  it('skip on an empty frame notes the skip and advances', () => {
+    const { editor, writes } = loadedEditor();
     editor.skipFrame();
     const s = editor.getState();
-    expect(s.marksByTrack.ball[0]).toBeUndefined();
     expect(s.skipped['ball@0']).toBe(true);
     expect(s.frameNumber).toBe(1);
+    expect(writes).toEqual([]);
+  });
+
+  it('skip never deletes an existing mark silently: the first press asks, the second removes it', () => {
+    const { editor, writes } = loadedEditor();
+    editor.placeMark({ u: 1, v: 1 });
+    editor.goToFrame(0);
+    writes.length = 0;
+    editor.skipFrame();
+    let s = editor.getState();
+    expect(s.marksByTrack.ball[0]).toMatchObject({ uPx: 1, vPx: 1 });
+    expect(s.skipNeedsConfirm).toBe('ball@0');
+    expect(s.frameNumber).toBe(0);
+    expect(writes).toEqual([]);
+    editor.skipFrame();
+    s = editor.getState();
+    expect(s.marksByTrack.ball[0]).toBeUndefined();
+    expect(s.skipped['ball@0']).toBe(true);
+    expect(s.skipNeedsConfirm).toBeNull();
+    expect(s.frameNumber).toBe(1);
+    expect(writes).toHaveLength(1);
+  });
+
+  it('a skip waiting for confirmation is forgotten on cancel or when the frame changes', () => {
+    const { editor } = loadedEditor();
+    editor.placeMark({ u: 1, v: 1 });
+    editor.goToFrame(0);
+    editor.skipFrame();
+    editor.cancelSkip();
+    expect(editor.getState().skipNeedsConfirm).toBeNull();
+    editor.skipFrame();
+    editor.step(1);
+    editor.step(-1);
+    editor.skipFrame();
+    // Asked again rather than taking the earlier press as the confirmation.
+    expect(editor.getState().marksByTrack.ball[0]).toBeDefined();
+    editor.skipFrame({ removeMark: true });
+    expect(editor.getState().marksByTrack.ball[0]).toBeUndefined();
   });
 
   it('people who may not mark change nothing and get no marking tool', () => {

@@ -48,6 +48,11 @@ export interface EditorState {
   marksByTrack: Record<string, Record<number, EditorMark>>;
   /** Frames the tracker passed on purpose (projectile hidden), per track; local to this session. */
   skipped: Record<MarkKey, true>;
+  /**
+   * Skip was pressed on a frame that has a mark: the mark stays until the person presses skip
+   * again on that frame (or confirms in the notice); any other move forgets the request.
+   */
+  skipNeedsConfirm: MarkKey | null;
   calibrationDraft: CalibrationDraft;
   history: History;
   permissions: EditorPermissions;
@@ -107,6 +112,7 @@ export function initialEditorState(): EditorState {
     activeTrackId: null,
     marksByTrack: {},
     skipped: {},
+    skipNeedsConfirm: null,
     calibrationDraft: EMPTY_CALIBRATION,
     history: EMPTY_HISTORY,
     permissions: { canMark: false, canCalibrate: false },
@@ -335,25 +341,41 @@ export function createEditor(options: EditorOptions = {}) {
       commit({ kind: 'mark', trackId, frameNumber, before, after: null });
     },
 
-    /** The projectile cannot be seen on this frame: drop any mark here, note the skip, go on. */
-    skipFrame() {
+    /**
+     * The projectile cannot be seen on this frame: note the skip and go on. A mark already on the
+     * frame is never dropped silently: the first press only asks (skipNeedsConfirm), a second press
+     * on the same frame, or `{ removeMark: true }` from the notice's button, removes it (undoable).
+     */
+    skipFrame({ removeMark = false }: { removeMark?: boolean } = {}) {
       const trackId = state.activeTrackId;
       if (!trackId || !state.permissions.canMark) return;
       const frameNumber = state.frameNumber;
-      if (markAt(state, trackId, frameNumber)) editor.deleteMark(trackId, frameNumber);
-      set({ ...state, skipped: { ...state.skipped, [markKey(trackId, frameNumber)]: true } });
+      const key = markKey(trackId, frameNumber);
+      if (markAt(state, trackId, frameNumber)) {
+        if (!removeMark && state.skipNeedsConfirm !== key) {
+          set({ ...state, skipNeedsConfirm: key });
+          return;
+        }
+        editor.deleteMark(trackId, frameNumber);
+      }
+      set({ ...state, skipNeedsConfirm: null, skipped: { ...state.skipped, [key]: true } });
       editor.step(1);
+    },
+
+    /** Keep the mark after all: forget a skip that was waiting for confirmation. */
+    cancelSkip() {
+      if (state.skipNeedsConfirm !== null) set({ ...state, skipNeedsConfirm: null });
     },
 
     step(by: number) {
       const frameNumber = frameAfterStep(by);
-      if (frameNumber !== state.frameNumber) set({ ...state, frameNumber });
+      if (frameNumber !== state.frameNumber) set({ ...state, frameNumber, skipNeedsConfirm: null });
     },
 
     goToFrame(frameNumber: number) {
       if (state.frames.length === 0) return;
       const target = state.frames[indexOfFrame(frameNumber)].frameNumber;
-      if (target !== state.frameNumber) set({ ...state, frameNumber: target });
+      if (target !== state.frameNumber) set({ ...state, frameNumber: target, skipNeedsConfirm: null });
     },
 
     /** Home / End: the first or last frame the active track has a mark on. */

@@ -85,6 +85,7 @@ export function useWorkspaceKeys(editor: Editor, actions: WorkspaceKeyActions) {
           editor.setSnap(!editor.getState().snapOn);
           return;
         case 'Escape':
+          editor.cancelSkip();
           editor.toolEvent({ type: 'cancel' });
           return;
         case '[':
@@ -126,7 +127,7 @@ export const SHORTCUTS: { keys: string; what: string }[] = [
   { keys: 'Home / End', what: 'First / last marked frame of the track' },
   { keys: 'P', what: 'Place: click to mark and move on; drag a mark to adjust' },
   { keys: 'Delete', what: 'Remove the mark on this frame' },
-  { keys: 'S', what: 'Skip this frame (projectile hidden) and move on' },
+  { keys: 'S', what: 'Skip this frame (projectile hidden) and move on; on a marked frame, press twice to remove the mark' },
   { keys: 'N', what: 'Snap to the projectile centre on or off' },
   { keys: '[ / ]', what: 'Previous / next track' },
   { keys: 'R', what: 'Ruler: two ends of the scale reference, then its length' },
