@@ -42,12 +42,13 @@ it('invites a tracker, shows the mail in the outbox, and the link makes a member
   await expect(membersTable.getByRole('columnheader', { name: 'E-mail' }).getAttribute('aria-sort')).resolves.toBe('ascending');
   await expect(emails()).resolves.toEqual([...before].sort((a, b) => a.localeCompare(b)));
 
-  // The demo team has one admin: demoting her must be refused, readably.
-  await page.getByLabel(`Role of ${admin.displayName}`).selectOption('analyst');
-  const refusal = page.getByRole('alert').filter({ hasText: 'last admin' });
-  await refusal.waitFor();
-  await expect(refusal.textContent()).resolves.toContain('every team needs at least one admin');
-  await expect(page.getByLabel(`Role of ${admin.displayName}`).inputValue()).resolves.toBe('admin');
+  // The demo team has one admin: her own role menu is disabled, and the page says why.
+  const ownRole = page.getByLabel(`Role of ${admin.displayName}`);
+  expect(await ownRole.isDisabled()).toBe(true);
+  const reasonId = await ownRole.getAttribute('aria-describedby');
+  expect(reasonId).toBeTruthy();
+  await expect(page.locator(`[id="${reasonId}"]`).textContent()).resolves.toContain('only admin');
+  await expect(ownRole.inputValue()).resolves.toBe('admin');
 
   const invite = page.getByRole('region', { name: 'Invite someone' });
   await invite.getByLabel('E-mail').fill(newcomer.email);
@@ -106,6 +107,12 @@ it('invites a tracker, shows the mail in the outbox, and the link makes a member
   await page.getByRole('dialog').getByRole('button', { name: 'Revoke', exact: true }).click();
   await otherRow.getByText('Revoked').waitFor();
   // The newcomer is now listed as a member, with the invited role.
+  await expect(page.getByLabel(`Role of ${newcomer.name}`).inputValue()).resolves.toBe('tracker');
+  // Making someone an admin waits for a confirmation; cancelled, nothing changes.
+  await page.getByLabel(`Role of ${newcomer.name}`).selectOption('admin');
+  const promote = page.getByRole('dialog', { name: `Make ${newcomer.name} an admin of` });
+  await promote.getByRole('button', { name: 'Make admin' }).waitFor();
+  await promote.getByRole('button', { name: 'Cancel' }).click();
   await expect(page.getByLabel(`Role of ${newcomer.name}`).inputValue()).resolves.toBe('tracker');
 
   // Removing the newcomer (confirmed in a dialog) leaves them with no team: "/" then offers to start one.

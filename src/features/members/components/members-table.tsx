@@ -1,5 +1,5 @@
 import { useMemo, useState } from 'react';
-import { ROLE_LABELS } from '@shared/roles';
+import { ROLE_LABELS, type Role } from '@shared/roles';
 import type { Member } from '@shared/schemas/teams';
 import { Badge } from '@/components/ui/badge';
 import { Button } from '@/components/ui/button';
@@ -29,6 +29,21 @@ export function MembersTable({ teamId, teamName, members, loading, myUserId, can
   const remove = useRemoveMember(teamId);
   const [removing, setRemoving] = useState<Member | null>(null);
   const [changed, setChanged] = useState<string | null>(null);
+  // Making someone an admin hands them the whole team: it waits for a confirmation.
+  const [promoting, setPromoting] = useState<Member | null>(null);
+  const adminCount = members.filter((m) => m.role === 'admin').length;
+  const applyRole = (member: Member, role: Role) => {
+    setChanged(null);
+    changeRole.mutate(
+      { userId: member.userId, role },
+      {
+        onSuccess: () => {
+          setChanged(`${member.displayName} is now ${ROLE_LABELS[role]}.`);
+          setPromoting(null);
+        },
+      },
+    );
+  };
 
   const columns = useMemo(
     () =>
@@ -52,19 +67,24 @@ export function MembersTable({ teamId, teamName, members, loading, myUserId, can
           cell: (info) => {
             const member = info.row.original;
             if (!canManage) return <Badge tone={member.role === 'admin' ? 'signal' : 'neutral'}>{ROLE_LABELS[member.role]}</Badge>;
+            // A team always keeps an admin: the only one cannot change their own role (the server refuses it too).
+            const onlyAdmin = member.role === 'admin' && adminCount === 1;
+            const reasonId = `only-admin-${member.userId}`;
             return (
-              <RoleSelect
-                label={`Role of ${member.displayName}`}
-                value={member.role}
-                disabled={changeRole.isPending}
-                onChange={(role) => {
-                  setChanged(null);
-                  changeRole.mutate(
-                    { userId: member.userId, role },
-                    { onSuccess: () => setChanged(`${member.displayName} is now ${ROLE_LABELS[role]}.`) },
-                  );
-                }}
-              />
+              <div className="flex flex-col gap-0.5">
+                <RoleSelect
+                  label={`Role of ${member.displayName}`}
+                  value={member.role}
+                  disabled={changeRole.isPending || onlyAdmin}
+                  describedBy={onlyAdmin ? reasonId : undefined}
+                  onChange={(role) => (role === 'admin' ? setPromoting(member) : applyRole(member, role))}
+                />
+                {onlyAdmin && (
+                  <span id={reasonId} className="text-micro text-ink-faint">
+                    The team’s only admin. Make someone else admin first.
+                  </span>
+                )}
+              </div>
             );
           },
         }),
@@ -84,13 +104,23 @@ export function MembersTable({ teamId, teamName, members, loading, myUserId, can
             ]
           : []),
       ]),
-    [canManage, myUserId, changeRole],
+    [canManage, myUserId, changeRole, adminCount],
   );
 
   return (
     <div className="flex flex-col gap-3">
       {changeRole.error ? <FormError error={changeRole.error} /> : changed && <InlineStatus tone="ok">{changed}</InlineStatus>}
       <DataTable caption="Members" columns={columns} data={members} getRowId={(m) => m.userId} loading={loading} empty="No members." filterPlaceholder="Filter by name, e-mail or role…" />
+      <ConfirmDialog
+        open={promoting !== null}
+        title={promoting ? `Make ${promoting.displayName} an admin of ${teamName}?` : ''}
+        description="Admins can invite and remove people, change anyone’s role and change the team’s settings."
+        confirmLabel="Make admin"
+        tone="primary"
+        busy={changeRole.isPending}
+        onClose={() => setPromoting(null)}
+        onConfirm={() => promoting && applyRole(promoting, 'admin')}
+      />
       <ConfirmDialog
         open={removing !== null}
         title={removing ? `Remove ${removing.displayName} from ${teamName}?` : ''}
