@@ -61,7 +61,16 @@ it('publishing a version from approved demo fits changes the forecast', async ()
   // The heterogeneity words are shown before anything is published.
   await preview.getByText(/The shots (agree within|disagree more than) their intervals/).first().waitFor();
   await page.getByLabel('Note').fill('All five morning shots');
+  const disagree = (await preview.getByText(/The shots disagree more than their intervals/).count()) > 0;
   await page.getByRole('button', { name: 'Publish version' }).click();
+  if (disagree) {
+    // Fits that disagree are published only after a confirmation that states the heterogeneity.
+    const confirm = page.getByRole('dialog', { name: 'Publish although the fits disagree?' });
+    await confirm.getByTestId('publish-heterogeneity').getByText(/I² \d+%/).first().waitFor();
+    await confirm.getByRole('button', { name: 'Publish anyway' }).click();
+  } else {
+    expect(await page.getByRole('dialog').count()).toBe(0);
+  }
   await page.getByText('Version 3 published.').waitFor();
   await page.getByTestId('version-3').getByText(/pooled from 5 approved fits/).first().waitFor();
   await page.getByTestId('version-3').getByText('All five morning shots').waitFor();

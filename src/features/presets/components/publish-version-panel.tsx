@@ -2,12 +2,14 @@ import { useState } from 'react';
 import type { FitCandidate, PoolPreview } from '@shared/schemas/presets';
 import { Button } from '@/components/ui/button';
 import { Card } from '@/components/ui/card';
+import { ConfirmDialog } from '@/components/ui/dialog';
 import { FormError } from '@/components/ui/form-error';
 import { InlineStatus } from '@/components/ui/inline-status';
 import { TextField } from '@/components/ui/text-field';
 import { formatNumber } from '@/lib/format';
 import { usePoolPreview } from '@/api/presets/pool-preview';
 import { usePublishVersion } from '@/api/presets/publish-version';
+import { disagreements } from './pool-disagreement';
 import { cdText, kPa, pctText } from './preset-format';
 
 function PooledLine({ label, p, format }: { label: string; p: PoolPreview['dragCoefficient'] | null; format: (v: number, s: number) => string }) {
@@ -32,6 +34,9 @@ export function PublishVersionPanel({ teamId, presetId, candidates }: { teamId: 
   const preview = usePoolPreview(teamId, presetId, requested);
   const publish = usePublishVersion(teamId, presetId);
   const [published, setPublished] = useState<number | null>(null);
+  // Fits that disagree (high I²) are published only after the engineer has read that they do.
+  const [confirming, setConfirming] = useState(false);
+  const disagreeing = preview.data ? disagreements(preview.data) : [];
 
   const toggle = (id: string) => {
     setChosen((prev) => {
@@ -44,6 +49,19 @@ export function PublishVersionPanel({ teamId, presetId, candidates }: { teamId: 
     setPublished(null);
   };
   const fitIds = [...chosen];
+  const doPublish = () =>
+    publish.mutate(
+      { fitIds, note },
+      {
+        onSuccess: (v) => {
+          setPublished(v.version);
+          setChosen(new Set());
+          setNote('');
+          setRequested(null);
+        },
+        onSettled: () => setConfirming(false),
+      },
+    );
 
   return (
     <Card title="Publish a new version" subtitle="Pool approved fits of this launcher and projectile by inverse-variance weighting">
@@ -73,24 +91,7 @@ export function PublishVersionPanel({ teamId, presetId, candidates }: { teamId: 
             <Button disabled={fitIds.length === 0} busy={preview.isFetching} onClick={() => setRequested(fitIds)}>
               Pool {fitIds.length || ''} fit{fitIds.length === 1 ? '' : 's'}
             </Button>
-            <Button
-              variant="primary"
-              disabled={!preview.data}
-              busy={publish.isPending}
-              onClick={() =>
-                publish.mutate(
-                  { fitIds, note },
-                  {
-                    onSuccess: (v) => {
-                      setPublished(v.version);
-                      setChosen(new Set());
-                      setNote('');
-                      setRequested(null);
-                    },
-                  },
-                )
-              }
-            >
+            <Button variant="primary" disabled={!preview.data} busy={publish.isPending && !confirming} onClick={() => (disagreeing.length > 0 ? setConfirming(true) : doPublish())}>
               Publish version
             </Button>
           </div>
@@ -107,6 +108,22 @@ export function PublishVersionPanel({ teamId, presetId, candidates }: { teamId: 
             </div>
           )}
           {published !== null && <InlineStatus tone="ok">Version {published} published.</InlineStatus>}
+          <ConfirmDialog
+            open={confirming}
+            title="Publish although the fits disagree?"
+            description="The chosen fits disagree more than their intervals allow, so the pooled uncertainty has been widened. Check for a changed launcher, projectile or marking before publishing."
+            confirmLabel="Publish anyway"
+            tone="primary"
+            busy={publish.isPending}
+            onConfirm={doPublish}
+            onClose={() => setConfirming(false)}
+          >
+            <ul className="list-disc pl-5 text-body tabular-nums" data-testid="publish-heterogeneity">
+              {disagreeing.map((line) => (
+                <li key={line}>{line}</li>
+              ))}
+            </ul>
+          </ConfirmDialog>
         </div>
       )}
     </Card>
