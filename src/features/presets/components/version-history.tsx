@@ -4,6 +4,7 @@ import { Badge } from '@/components/ui/badge';
 import { Card } from '@/components/ui/card';
 import { formatDateTime, formatNumber } from '@/lib/format';
 import { cdText, pctText } from './preset-format';
+import { versionChangeCells } from './version-change';
 
 function diffValue(v: number | string | null, field: string): string {
   if (v === null) return '—';
@@ -81,14 +82,18 @@ export function VersionHistory({ versions, fitLabel }: { versions: PresetVersion
                   </tr>
                 </thead>
                 <tbody>
-                  {v.diff.rows.map((r) => (
-                    <tr key={r.field} className="border-t border-line align-top">
-                      <td className="pr-2">{r.label}</td>
-                      <td className="pr-2 tabular-nums">{diffValue(r.before, r.field)}</td>
-                      <td className="pr-2 tabular-nums">{diffValue(r.after, r.field)}</td>
-                      <td className="tabular-nums">{r.relativeChange === null ? '' : `${r.relativeChange > 0 ? '+' : ''}${formatNumber(r.relativeChange * 100, { decimals: 1 })} %`}</td>
-                    </tr>
-                  ))}
+                  {v.diff.rows.map((r) => {
+                    const numeric = typeof r.after === 'number' && (r.before === null || typeof r.before === 'number');
+                    const cells = numeric ? versionChangeCells(r.before as number | null, r.after as number, r.field) : { before: diffValue(r.before, r.field), after: diffValue(r.after, r.field), change: '' };
+                    return (
+                      <tr key={r.field} className="border-t border-line align-top">
+                        <td className="pr-2">{r.label}</td>
+                        <td className="pr-2 tabular-nums">{cells.before}</td>
+                        <td className="pr-2 tabular-nums">{cells.after}</td>
+                        <td className="tabular-nums">{cells.change}</td>
+                      </tr>
+                    );
+                  })}
                 </tbody>
               </table>
             )}
