@@ -9,22 +9,25 @@ import { FormError } from '@/components/ui/form-error';
 import { LoadingBlock } from '@/components/ui/spinner';
 import { useMeasuredVsForecast } from '@/api/presets/measured-vs-forecast';
 import { formatNumber } from '@/lib/format';
+import { parityDomain } from './parity-domain';
 
 const COLOURS = { speed: '#1f7a72', range: '#d9822b', grid: '#e2dccf', ink: '#3d4a5c' } as const;
 
 function Parity({ title, unit, points, colour }: { title: string; unit: string; points: { forecast: number; measured: number; label: string }[]; colour: string }) {
-  const max = Math.max(1, ...points.flatMap((p) => [p.forecast, p.measured])) * 1.08;
+  const [min, max] = parityDomain(points);
+  const span = max - min;
+  const tickDecimals = span >= 20 ? 0 : span >= 2 ? 1 : 2;
   return (
     <figure aria-label={title} className="min-w-0 flex-1">
       <figcaption className="mb-1 text-micro text-ink-faint">{title} — on the diagonal, the forecast matched</figcaption>
       <ResponsiveContainer width="100%" height={260}>
-        <ScatterChart margin={{ top: 8, right: 16, bottom: 24, left: 8 }}>
+        <ScatterChart margin={{ top: 8, right: 16, bottom: 24, left: 16 }}>
           <CartesianGrid stroke={COLOURS.grid} />
-          <XAxis type="number" dataKey="forecast" domain={[0, max]} tickFormatter={(v: number) => formatNumber(v, { decimals: 0 })} label={{ value: `forecast (${unit})`, position: 'insideBottom', offset: -12 }} />
-          <YAxis type="number" dataKey="measured" domain={[0, max]} tickFormatter={(v: number) => formatNumber(v, { decimals: 0 })} label={{ value: `measured (${unit})`, angle: -90, position: 'insideLeft' }} />
+          <XAxis type="number" dataKey="forecast" domain={[min, max]} allowDataOverflow tickFormatter={(v: number) => formatNumber(v, { decimals: tickDecimals })} label={{ value: `forecast (${unit})`, position: 'insideBottom', offset: -12 }} />
+          <YAxis type="number" dataKey="measured" domain={[min, max]} allowDataOverflow tickFormatter={(v: number) => formatNumber(v, { decimals: tickDecimals })} width={56} label={{ value: `measured (${unit})`, angle: -90, position: 'insideLeft', offset: -4, style: { textAnchor: 'middle' } }} />
           <Tooltip formatter={(v) => (typeof v === 'number' ? formatNumber(v, { decimals: 2 }) : String(v))} />
           <Legend verticalAlign="top" height={24} />
-          <ReferenceLine segment={[{ x: 0, y: 0 }, { x: max, y: max }]} stroke={COLOURS.ink} strokeDasharray="4 4" />
+          <ReferenceLine segment={[{ x: min, y: min }, { x: max, y: max }]} stroke={COLOURS.ink} strokeDasharray="4 4" />
           <Scatter name={title} data={points} fill={colour} isAnimationActive={false} />
         </ScatterChart>
       </ResponsiveContainer>
