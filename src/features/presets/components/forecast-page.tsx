@@ -9,7 +9,7 @@ import { PageHeader } from '@/components/ui/page-header';
 import { SelectField } from '@/components/ui/select-field';
 import { LoadingBlock } from '@/components/ui/spinner';
 import { TextField } from '@/components/ui/text-field';
-import { formatNumber } from '@/lib/format';
+import { formatNumber, formatRange } from '@/lib/format';
 import { useCurrentTeam } from '@/lib/use-current-team';
 import { useForecast } from '@/api/presets/get-forecast';
 import { usePreset } from '@/api/presets/get-preset';
@@ -47,7 +47,8 @@ function toBody(presetId: string, f: FormState): ForecastBody {
   };
 }
 
-const band = (b: { low: number; high: number } | null, unit: string, d = 1) => (b ? `${formatNumber(b.low, { decimals: d })}–${formatNumber(b.high, { decimals: d })} ${unit}` : '—');
+// As many decimals as the band's width needs, so a narrow band never reads "23.5–23.5".
+const band = (b: { low: number; high: number } | null, unit: string, d = 1) => (b ? formatRange(b.low, b.high, unit, d) : '—');
 
 function Results({ f }: { f: ForecastResponse }) {
   const num = (v: number | null, unit: string, d = 1, id?: string) => (
