@@ -31,6 +31,9 @@ export interface ReceivedFile extends Express.Multer.File {
   kept?: boolean;
 }
 
+export const frameStoreUnavailable = () =>
+  new HttpProblem(503, 'Storage unavailable', 'The frame store cannot be reached right now. Try again in a moment; frames already shown stay cached.');
+
 export const storageUnavailable = () =>
   new HttpProblem(503, 'Storage unavailable', 'The clip store cannot be reached right now, so nothing was kept. Try the upload again in a few minutes.');
 

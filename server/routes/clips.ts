@@ -16,6 +16,8 @@ import { clipService, type StoredImage } from '../clips/clip-service';
 import { receiveClipUpload, receivedFile } from '../clips/intake';
 import { actorOf, currentTeam, currentUser, input } from '../http/input';
 import { badRequest, notFound } from '../http/problem';
+import { frameStoreUnavailable } from '../clips/intake';
+import { isStorageUnavailable } from '../storage/storage';
 import type { RouteTable } from '../http/route-table';
 import { validate } from '../http/validate';
 
@@ -124,8 +126,12 @@ export function clipRoutes(api: RouteTable, deps: AppDeps) {
     res.set({ ETag: etag, 'Cache-Control': IMMUTABLE, 'Content-Type': 'image/jpeg' });
     if (req.fresh) return void res.status(304).end();
     res.set('Content-Length', String(image.sizeBytes));
-    const stream = await image.open().catch(() => {
-      throw notFound('The frame file is missing; extract the clip again.');
+    const stream = await image.open().catch((err) => {
+      // An error must not carry the year-long caching meant for the image.
+      res.removeHeader('ETag');
+      res.removeHeader('Cache-Control');
+      res.removeHeader('Content-Length');
+      throw isStorageUnavailable(err) ? frameStoreUnavailable() : notFound('The frame file is missing; extract the clip again.');
     });
     stream.on('error', () => res.destroy());
     stream.pipe(res);
