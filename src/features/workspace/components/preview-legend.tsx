@@ -13,13 +13,14 @@ export function PreviewLegend({ preview, markCount, calibrated }: { preview: Fli
         <ul className="flex flex-col gap-1">
           <li className="flex items-center gap-2">
             <svg width="28" height="6" aria-hidden><line x1="0" y1="3" x2="28" y2="3" stroke="#1f7a72" strokeWidth="2" /></svg>
-            Drag fit{preview?.drag ? ` (k ≈ ${formatNumber(preview.drag.dragK_perM, { digits: 2 })} /m)` : ' — not converged yet'}
+            {/* "Not converged" only when a preview exists and its drag fit failed; while the worker is still fitting, say that. */}
+            Drag fit{preview?.drag ? ` (k ≈ ${formatNumber(preview.drag.dragK_perM, { digits: 2 })} /m)` : preview ? ' — not converged yet' : ' — fitting…'}
           </li>
           <li className="flex items-center gap-2">
             <svg width="28" height="6" aria-hidden><line x1="0" y1="3" x2="28" y2="3" stroke="#7a6fa8" strokeWidth="2" strokeDasharray="5 3" /></svg>
             Drag-free fit
           </li>
-          <li>Crosshairs: where each fit expects the projectile on the next frame.</li>
+          <li>{preview && !preview.dragFree.next ? 'The last frame of the clip is marked: no next frame to predict.' : 'Crosshairs: where each fit expects the projectile on the next frame.'}</li>
         </ul>
       )}
       <p className="mt-1 text-ink-faint">A preview only; the reviewed fit uses the projectile’s mass, size and the air on the day.</p>

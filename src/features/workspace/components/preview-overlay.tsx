@@ -20,16 +20,16 @@ export function PreviewOverlay({ preview, transform, view }: PreviewOverlayProps
     const p = toScreen(w);
     return [p.x, p.y];
   });
-  const freeNext = toScreen(preview.dragFree.next);
-  const dragNext = preview.drag ? toScreen(preview.drag.next) : null;
+  const freeNext = preview.dragFree.next ? toScreen(preview.dragFree.next) : null;
+  const dragNext = preview.drag?.next ? toScreen(preview.drag.next) : null;
   return (
     <Group listening={false}>
       <Line points={flat(preview.dragFree.path)} stroke={STAGE.vacuum} strokeWidth={1.5} dash={[6, 4]} opacity={0.9} />
-      <Crosshair x={freeNext.x} y={freeNext.y} colour={STAGE.vacuum} dashed />
-      {preview.drag && dragNext && (
+      {freeNext && <Crosshair x={freeNext.x} y={freeNext.y} colour={STAGE.vacuum} dashed />}
+      {preview.drag && (
         <>
           <Line points={flat(preview.drag.path)} stroke={STAGE.fit} strokeWidth={1.75} opacity={0.95} />
-          <Crosshair x={dragNext.x} y={dragNext.y} colour={STAGE.fit} />
+          {dragNext && <Crosshair x={dragNext.x} y={dragNext.y} colour={STAGE.fit} />}
         </>
       )}
     </Group>

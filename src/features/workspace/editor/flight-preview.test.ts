@@ -25,6 +25,22 @@ describe('flight preview', () => {
     expect(Math.abs(p.drag!.dragK_perM)).toBeLessThan(1e-3);
   });
 
+  it('keeps both curves when the last mark is on the clip’s last frame (no next frame to predict)', () => {
+    const k = 0.05;
+    const times = Array.from({ length: 40 }, (_, i) => i * dt * 3);
+    const run = simulateTrajectory({ dragK_perM: k }, { xM: 0, yM: 0, vxMps: 30, vyMps: 20 }, { timesS: times });
+    const marks = run.points.map((q) => ({ tS: q.tS, xM: q.xM, yM: q.yM }));
+    const p = flightPreview(marks, null)!;
+    expect(p).not.toBeNull();
+    // The drag fit converged and says so: it is not reported as missing.
+    expect(p.drag!.dragK_perM).toBeCloseTo(k, 4);
+    expect(p.drag!.next).toBeNull();
+    expect(p.dragFree.next).toBeNull();
+    // The drawn curves reach the last mark and every point is a number.
+    expect(p.drag!.path.at(-1)!.tS).toBeCloseTo(marks.at(-1)!.tS, 12);
+    for (const q of [...p.drag!.path, ...p.dragFree.path]) expect(Number.isFinite(q.xM) && Number.isFinite(q.yM)).toBe(true);
+  });
+
   it('follows marks from a drag flight with the drag curve, and the vacuum curve misses', () => {
     const k = 0.05;
     const times = Array.from({ length: 40 }, (_, i) => i * dt * 3);

@@ -24,16 +24,23 @@ export interface WorldPathPoint {
 }
 
 export interface FlightPreview {
-  dragFree: { path: WorldPathPoint[]; next: WorldPathPoint };
+  /** `next` is null when the last mark is on the clip's last frame: there is no next frame to predict. */
+  dragFree: { path: WorldPathPoint[]; next: WorldPathPoint | null };
   /** Null when the drag fit did not converge (too few or too noisy marks). */
-  drag: { path: WorldPathPoint[]; next: WorldPathPoint; dragK_perM: number } | null;
+  drag: { path: WorldPathPoint[]; next: WorldPathPoint | null; dragK_perM: number } | null;
 }
 
-/** `marks` sorted by time; `nextTS` the time of the frame after the last mark. */
-export function flightPreview(marks: FitMark[], nextTS: number, samples = 48): FlightPreview | null {
+/**
+ * `marks` sorted by time; `nextTS` the time of the frame after the last mark, or null when the
+ * last mark is on the clip's last frame. The curves are fitted either way: marking the last
+ * frame must not make the preview disappear.
+ */
+export function flightPreview(marks: FitMark[], nextTS: number | null, samples = 48): FlightPreview | null {
   if (marks.length < PREVIEW_MIN_MARKS) return null;
   const t0 = marks[0].tS;
-  const tEnd = Math.max(nextTS, marks[marks.length - 1].tS);
+  const tLast = marks[marks.length - 1].tS;
+  const hasNext = nextTS !== null && Number.isFinite(nextTS);
+  const tEnd = hasNext ? Math.max(nextTS, tLast) : tLast;
   const taus = Array.from({ length: samples + 1 }, (_, i) => ((tEnd - t0) * i) / samples);
 
   const free = fitDragFree(marks, STANDARD_GRAVITY_MPS2, t0);
@@ -43,16 +50,17 @@ export function flightPreview(marks: FitMark[], nextTS: number, samples = 48): F
     xM: x0 + vx * tau,
     yM: y0 + vy * tau - 0.5 * STANDARD_GRAVITY_MPS2 * tau * tau,
   });
-  const dragFree = { path: taus.map(vacuumAt), next: vacuumAt(nextTS - t0) };
+  const dragFree = { path: taus.map(vacuumAt), next: hasNext ? vacuumAt(nextTS - t0) : null };
 
   let drag: FlightPreview['drag'] = null;
   try {
     const fit = fitQuadraticDrag(marks, { startState: free.state, typicalK_perM: TYPICAL_K_PER_M });
     if (fit.fit.converged && fit.fit.params.every(Number.isFinite)) {
       const p = fit.fit.params;
-      const run = simulateTrajectory({ dragK_perM: p[DRAG_PARAM.dragK_perM] }, launchFromParams(p), { timesS: [...taus, nextTS - t0].filter((t, i, a) => i === 0 || t > a[i - 1]) });
+      const times = hasNext ? [...taus, nextTS - t0] : taus;
+      const run = simulateTrajectory({ dragK_perM: p[DRAG_PARAM.dragK_perM] }, launchFromParams(p), { timesS: times.filter((t, i, a) => i === 0 || t > a[i - 1]) });
       const points = run.points.map((q) => ({ tS: t0 + q.tS, xM: q.xM, yM: q.yM }));
-      const nextPoint = points.find((q) => Math.abs(q.tS - nextTS) < 1e-12) ?? points[points.length - 1];
+      const nextPoint = hasNext ? (points.find((q) => Math.abs(q.tS - nextTS) < 1e-12) ?? points[points.length - 1]) : null;
       drag = { path: points.filter((q) => q.tS <= tEnd + 1e-12), next: nextPoint, dragK_perM: p[4] };
     }
   } catch {

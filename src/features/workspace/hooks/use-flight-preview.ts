@@ -23,7 +23,8 @@ export function useFlightPreview(marks: FitMark[] | null, nextTS: number | null)
   }, []);
 
   useEffect(() => {
-    if (!marks || marks.length < PREVIEW_MIN_MARKS || nextTS === null) {
+    // nextTS is null once the clip's last frame is marked; the curves are still drawn, without a next-frame cross.
+    if (!marks || marks.length < PREVIEW_MIN_MARKS) {
       lastId.current++;
       setPreview(null);
       return;
