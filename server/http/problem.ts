@@ -49,6 +49,15 @@ function toProblem(err: unknown): HttpProblem {
   if (err instanceof ZodError) {
     return new HttpProblem(400, 'Invalid request', describeZodError(err), { errors: zodIssues(err) });
   }
+  // PostgreSQL's data exceptions (SQLSTATE class 22: a number out of range for its
+  // column, text it cannot store, a malformed value) are the request's fault, not
+  // the server's: a backstop for any bound a schema still misses.
+  for (let c = err as { code?: unknown; cause?: unknown } | undefined, depth = 0; c && depth < 5; c = c.cause as typeof c, depth++) {
+    if (typeof c.code === 'string' && /^22[0-9A-Z]{3}$/.test(c.code)) {
+      const what = c.code === '22003' ? 'A number in the request is out of range.' : 'A value in the request cannot be stored as given.';
+      return new HttpProblem(400, 'Value out of range', `${what} Check the numbers and text you sent.`, { sqlState: c.code });
+    }
+  }
   const e = err as BodyParserError;
   if (e?.type === 'entity.parse.failed') return badRequest('The request body is not valid JSON.');
   if (e?.type === 'entity.too.large') {
