@@ -59,13 +59,13 @@ it('creates a series and a shot, uploads a clip, watches extraction finish and s
   await page.getByLabel('Chamber pressure (kPa)').fill('650');
   await page.getByLabel('Elevation setting (°)').fill('35');
   await page.getByLabel('Air temperature (°C)').fill('11.5');
-  await page.getByLabel('Station pressure (hPa)').fill('1008.7');
+  await page.getByLabel('Station pressure (kPa)').fill('100.87');
   await page.getByLabel('Relative humidity (%)').fill('71');
   await page.getByRole('button', { name: 'Save shot' }).click();
   await page.waitForURL(new RegExp(`/t/${teamId}/shots/[0-9a-f-]{36}$`));
   const shotId = page.url().split('/').pop()!;
 
-  // Stored in SI as the API contract says: 650 kPa = 650 000 Pa, 1008.7 hPa = 100 870 Pa.
+  // Stored in SI as the API contract says: 650 kPa = 650 000 Pa, 100.87 kPa = 100 870 Pa (kPa is the one pressure unit of the app).
   const shot = await (await page.request.get(`${base}/api/teams/${teamId}/shots/${shotId}`)).json();
   expect(shot).toMatchObject({ label, seriesName, chamberPressurePa: 650_000, stationPressurePa: 100_870, elevationDeg: 35, launcherName: 'Ollendry OL-40 line thrower' });
 

@@ -47,13 +47,15 @@ export function Dialog({ open, onClose, title, description, children, footer, si
         if (e.target === ref.current) onClose();
       }}
       className={cx(
-        'm-auto w-[calc(100%-2rem)] rounded-card border border-line bg-paper-raised p-0 text-ink shadow-xl backdrop:bg-ink/40',
+        // The dialog never outgrows the window: its body scrolls between a fixed title and footer, so focusing
+        // a footer button (autoFocus) cannot scroll the title out of sight.
+        'm-auto max-h-[calc(100dvh-2rem)] w-[calc(100%-2rem)] overflow-hidden rounded-card border border-line bg-paper-raised p-0 text-ink shadow-xl backdrop:bg-ink/40',
         WIDTHS[size],
       )}
     >
       {open && (
-        <div className="flex flex-col">
-          <div className="px-5 pt-4 pb-3">
+        <div className="flex max-h-[calc(100dvh-2rem)] flex-col">
+          <div className="shrink-0 px-5 pt-4 pb-3">
             <h2 id={titleId} className="text-lead font-semibold">
               {title}
             </h2>
@@ -63,8 +65,8 @@ export function Dialog({ open, onClose, title, description, children, footer, si
               </p>
             )}
           </div>
-          {children && <div className="px-5 pb-4">{children}</div>}
-          {footer && <div className="flex justify-end gap-2 border-t border-line bg-paper px-5 py-3">{footer}</div>}
+          {children && <div className="min-h-0 overflow-y-auto px-5 pb-4" data-dialog-body>{children}</div>}
+          {footer && <div className="flex shrink-0 justify-end gap-2 border-t border-line bg-paper px-5 py-3">{footer}</div>}
         </div>
       )}
     </dialog>

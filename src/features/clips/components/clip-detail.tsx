@@ -1,12 +1,14 @@
 import { useQueryClient } from '@tanstack/react-query';
 import { useEffect, useRef } from 'react';
 import { Link } from 'react-router';
+import { CAN } from '@shared/roles';
 import type { ClipView } from '@shared/schemas/clips';
 import { ButtonLink } from '@/components/ui/button-link';
 import { Card } from '@/components/ui/card';
 import { FormError } from '@/components/ui/form-error';
 import { LoadingBlock } from '@/components/ui/spinner';
 import { formatBytes, formatDateTime } from '@/lib/format';
+import { useCurrentTeam } from '@/lib/use-current-team';
 import { isWorking, useClip } from '@/api/clips/get-clip';
 import { invalidateAfterExtraction } from '@/api/clips/clip-views';
 import { useClipFrames } from '@/api/clips/list-clip-frames';
@@ -21,6 +23,8 @@ export function ClipDetail({ teamId, clipId, initial, canEdit, onDeleted }: { te
   const clip = query.data ?? initial;
   const ready = clip?.status === 'ready';
   const frames = useClipFrames(teamId, clipId, ready);
+  // Only the roles that may mark are invited to; everyone else may look at the marks.
+  const canMark = useCurrentTeam().can(CAN.mark);
 
   // When extraction settles, the frame list and the shot's clip list are out of date.
   const lastStatus = useRef(clip?.status);
@@ -40,8 +44,8 @@ export function ClipDetail({ teamId, clipId, initial, canEdit, onDeleted }: { te
       subtitle={`${formatBytes(clip.sizeBytes)} · uploaded ${formatDateTime(clip.createdAt)}`}
       actions={
         ready && (
-          <ButtonLink to={`/t/${teamId}/clips/${clip.id}/workspace`} variant="primary" size="sm">
-            Mark this clip
+          <ButtonLink to={`/t/${teamId}/clips/${clip.id}/workspace`} variant={canMark ? 'primary' : 'secondary'} size="sm">
+            {canMark ? 'Mark this clip' : 'View the marks'}
           </ButtonLink>
         )
       }

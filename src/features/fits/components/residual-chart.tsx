@@ -11,10 +11,13 @@ export function ResidualChart({ plots }: { plots: FitPlots }) {
   return (
     <figure aria-label="Residuals against time" data-chart="residuals">
       <ResponsiveContainer width="100%" height={220}>
-        <ScatterChart margin={{ top: 8, right: 16, bottom: 24, left: 8 }}>
+        <ScatterChart margin={{ top: 8, right: 16, bottom: 24, left: 16 }}>
           <CartesianGrid stroke={CHART.grid} />
           <XAxis type="number" dataKey="tS" domain={['auto', 'auto']} tickFormatter={(v: number) => formatNumber(v, { decimals: 3 })} label={{ value: 't (s)', position: 'insideBottom', offset: -12 }} />
-          <YAxis type="number" dataKey="mm" tickFormatter={(v: number) => formatNumber(v, { decimals: 1 })} label={{ value: 'residual (mm)', angle: -90, position: 'insideLeft' }} />
+          <YAxis type="number" dataKey="mm" tickFormatter={(v: number) => formatNumber(v, { decimals: 1 })} width={56}
+            // Centred on the axis: recharts anchors a rotated label at its start by default, which pushed "residual (mm)" out of the chart.
+            label={{ value: 'residual (mm)', angle: -90, position: 'insideLeft', offset: -4, style: { textAnchor: 'middle' } }}
+          />
           <ReferenceLine y={0} stroke={CHART.ink} />
           <Tooltip formatter={(v) => (typeof v === 'number' ? formatNumber(v, { decimals: 3 }) : String(v))} />
           <Legend verticalAlign="top" height={28} />

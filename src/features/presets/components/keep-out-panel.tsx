@@ -7,7 +7,7 @@ import { useKeepOut } from '@/api/presets/keep-out';
 import { KeepOutSafety } from './keep-out-safety';
 import { cdText, kPa, metres, pctText } from './preset-format';
 
-/** The keep-out distance with the vacuum ceiling beside it, and the cautions above both. */
+/** The keep-out distance, the vacuum ceiling under it as a secondary cross-check, and the cautions above both. */
 export function KeepOutPanel({ teamId, presetId, version }: { teamId: string; presetId: string; version?: number }) {
   const keepOut = useKeepOut(teamId, presetId, version);
   return (
@@ -18,15 +18,14 @@ export function KeepOutPanel({ teamId, presetId, version }: { teamId: string; pr
         {keepOut.isLoading && <LoadingBlock />}
         {keepOut.data && (
           <>
-            <div className="flex flex-wrap gap-6">
-              <div>
-                <p className="text-micro uppercase tracking-wide text-ink-faint">Keep-out distance</p>
-                <p className="text-display font-semibold tabular-nums text-alert" data-testid="keep-out-distance">{metres(keepOut.data.keepOutM, 0)}</p>
-              </div>
-              <div>
-                <p className="text-micro uppercase tracking-wide text-ink-faint">Vacuum ceiling v²/g</p>
-                <p className="text-display tabular-nums text-vacuum" data-testid="vacuum-ceiling">{metres(keepOut.data.vacuumCeilingM, 0)}</p>
-              </div>
+            <div>
+              <p className="text-micro uppercase tracking-wide text-ink-faint">Keep-out distance</p>
+              <p className="text-display font-semibold tabular-nums text-alert" data-testid="keep-out-distance">{metres(keepOut.data.keepOutM, 0)}</p>
+              {/* The ceiling is a cross-check, not a second distance to keep: it stays in body type under the one number that matters. */}
+              <p className="mt-1 text-body text-ink-soft" data-testid="vacuum-ceiling-line">
+                Vacuum ceiling v²/g: <span className="tabular-nums text-vacuum" data-testid="vacuum-ceiling">{metres(keepOut.data.vacuumCeilingM, 0)}</span>{' '}
+                <span className="text-micro text-ink-faint">— the farthest the upper-bound speed could carry with no air at all; a check on the figure above, not a distance to use.</span>
+              </p>
             </div>
             <KeyValueList
               items={[
