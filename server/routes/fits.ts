@@ -79,11 +79,12 @@ export function fitRoutes(api: RouteTable, deps: AppDeps) {
     res.type('application/json').attachment(`fit-${detail.id}.json`).send(JSON.stringify(detail, null, 2));
   }
 
-  async function reportPdf(_req: Request, res: Response) {
+  async function reportPdf(req: Request, res: Response) {
     const { params } = input(res, { params: FitParams });
     const team = currentTeam(res);
     const detail = await loadFitDetail(db, team.id, params.fitId);
-    const pdf = await buildFitReportPdf(detail, team.name);
+    // Dates in the reader's own locale, as the pages show them.
+    const pdf = await buildFitReportPdf(detail, team.name, req.acceptsLanguages()[0]);
     res.type('application/pdf').attachment(`fit-report-${detail.id}.pdf`).send(pdf);
   }
 }
