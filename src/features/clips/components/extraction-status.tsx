@@ -36,6 +36,9 @@ export function ExtractionStatus({ teamId, clip, canEdit, onDeleted }: { teamId:
           detail={clip.status === 'queued' ? 'waiting for the worker…' : `${Math.round(clip.progress * 100)}% · about ${Math.round(clip.progress * rangeFrames)} of ${rangeFrames} frames`}
         />
       )}
+      {clip.waitingFor === 'storage' && (
+        <p className="text-body text-ink-soft">Waiting for the file store to answer again; the extraction retries by itself.</p>
+      )}
       {clip.status === 'failed' && clip.error && (
         <p role="alert" className="rounded-md border border-alert/40 bg-alert-light/60 px-3 py-2 text-body text-alert">
           {clip.error}
