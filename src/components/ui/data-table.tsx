@@ -92,6 +92,11 @@ export interface DataTableProps<T extends RowData> {
 
 const EMPTY_SORTING: SortingState = [];
 
+// The first column is pinned while a wide table scrolls sideways (narrow screens): opaque
+// backgrounds so scrolled cells pass under it, and a hairline on its right edge.
+const PINNED_HEAD = 'sticky left-0 z-10 bg-paper-sunk shadow-[inset_-1px_0_0_#e2dccf]';
+const PINNED_CELL = 'sticky left-0 z-10 bg-paper-raised group-hover/row:bg-paper shadow-[inset_-1px_0_0_#e2dccf]';
+
 export function DataTable<T extends RowData>({
   caption,
   columns,
@@ -148,13 +153,14 @@ export function DataTable<T extends RowData>({
           {toolbar && <div className="flex items-center gap-2">{toolbar}</div>}
         </div>
       )}
-      <div className="overflow-x-auto rounded-card border border-line bg-paper-raised">
-        <table className="w-full border-collapse text-body">
+      {/* A table wider than its card scrolls inside the card; the first column stays pinned so each row keeps its name. */}
+      <div className="overflow-x-auto rounded-card border border-line bg-paper-raised" data-table-scroll>
+        <table className="w-full border-separate border-spacing-0 text-body">
           <caption className="sr-only">{caption}</caption>
           <thead className="bg-paper-sunk/70">
             {table.getHeaderGroups().map((group) => (
               <tr key={group.id}>
-                {group.headers.map((header) => {
+                {group.headers.map((header, index) => {
                   const meta = header.column.columnDef.meta;
                   const sorted = header.column.getIsSorted();
                   const canSort = header.column.getCanSort();
@@ -166,6 +172,7 @@ export function DataTable<T extends RowData>({
                       aria-sort={sorted === 'asc' ? 'ascending' : sorted === 'desc' ? 'descending' : canSort ? 'none' : undefined}
                       className={cx(
                         'border-b border-line text-micro font-semibold uppercase tracking-wide text-ink-soft whitespace-nowrap',
+                        index === 0 && PINNED_HEAD,
                         cellPad,
                         meta?.numeric ? 'text-right' : 'text-left',
                         meta?.className,
@@ -195,12 +202,15 @@ export function DataTable<T extends RowData>({
               <tr
                 key={row.id}
                 aria-selected={selectedRowId !== undefined ? row.id === selectedRowId : undefined}
-                className={cx('border-b border-line/70 last:border-b-0 hover:bg-paper/80', row.id === selectedRowId && 'bg-signal-light/40')}
+                className={cx('group/row [&:last-child>td]:border-b-0 hover:bg-paper/80', row.id === selectedRowId && 'bg-signal-light/40')}
               >
-                {row.getAllCells().map((cell) => {
+                {row.getAllCells().map((cell, index) => {
                   const meta = cell.column.columnDef.meta;
                   return (
-                    <td key={cell.id} className={cx(cellPad, 'align-middle', meta?.numeric && 'text-right tabular-nums', meta?.className)}>
+                    <td
+                      key={cell.id}
+                      className={cx(cellPad, 'border-b border-line/70 align-middle', index === 0 && PINNED_CELL, meta?.numeric && 'text-right tabular-nums', meta?.className)}
+                    >
                       <table.FlexRender cell={cell} />
                     </td>
                   );
