@@ -5,7 +5,7 @@
 //      and starts at the launcher (find-projectile.ts), or the blob under the seed click;
 //   3. rebuild the background around the launcher from frames after the launch (a ball
 //      resting in the muzzle for most of the clip would otherwise be part of it);
-//   4. follow it backward to the launch (stopping where it sat at rest) and forward
+//   4. follow it backward to the launch (stopping where it sits still: at rest) and forward
 //      until it leaves the frame, is lost, or the clip ends (track-follower.ts).
 // OpenCV (WebAssembly) does the image work; its memory is freed before returning.
 import { buildBackground, patchBackground, spreadFrames } from './background-model';
@@ -59,9 +59,9 @@ export async function autoMarkTrack(frames: FrameSource, options: AutoMarkOption
       from,
       to,
       signal: options.signal,
-      restPosition: null,
       progress,
       emit: async (mark) => {
+        throwIfAborted(options.signal);
         if (decided.has(mark.frameNumber)) return;
         decided.set(mark.frameNumber, mark);
         await options.onMark?.(publicMark(mark));
@@ -99,7 +99,6 @@ export async function autoMarkTrack(frames: FrameSource, options: AutoMarkOption
     ctx.radiusPx = Math.max(1, Math.sqrt(median(refined.map((m) => m.coverage)) / Math.PI));
     for (const m of refined) await ctx.emit(m);
 
-    ctx.restPosition = await findRestPosition(ctx, refined, stepPx);
     const back = await follow(ctx, refined, -1);
     const history = [...back.added, ...refined];
     const fwd = await follow(ctx, history, 1);
@@ -146,23 +145,6 @@ async function rebuildLaunchArea(ctx: TrackContext, chain: ChainPoint[], stepPx:
 }
 
 /**
- * Where the projectile sat before launch: a blob near the start of flight two
- * frames before it, in the same place one frame earlier still (it did not move).
- */
-async function findRestPosition(ctx: TrackContext, track: TrackedMark[], stepPx: number): Promise<{ u: number; v: number } | null> {
-  const first = track[0].frameNumber;
-  if (first - 2 < ctx.from) return null;
-  const before = predictAt(track.map(asPoint), first - 1);
-  const look = { u: before.u, v: before.v, gatePx: stepPx + 3 * ctx.radiusPx + 2, speedPx: stepPx, du: 0, dv: 0 };
-  const a = await measureAt(ctx, first - 2, look, 0);
-  if (a.kind !== 'mark') return null;
-  if (first - 3 < ctx.from) return { u: a.mark.uPx, v: a.mark.vPx };
-  const b = await measureAt(ctx, first - 3, { ...look, u: a.mark.uPx, v: a.mark.vPx, gatePx: 2 }, 0);
-  if (b.kind !== 'mark' || Math.hypot(b.mark.uPx - a.mark.uPx, b.mark.vPx - a.mark.vPx) > 1) return null;
-  return { u: (a.mark.uPx + b.mark.uPx) / 2, v: (a.mark.vPx + b.mark.vPx) / 2 };
-}
-
-/**
  * From a click: the blob under it, and the blobs one and two frames on (or
  * back) that continue it at a steady velocity.
  */
@@ -174,7 +156,7 @@ async function startFromSeed(ctx: TrackContext, seed: AutoMarkSeed): Promise<Fou
   for (let f = Math.max(ctx.from, seed.frameNumber - 2); f <= Math.min(ctx.to, seed.frameNumber + 2); f++) {
     const { frame, gain } = await gainFor(ctx, f);
     ctx.diff.setFrame(frame, gain);
-    blobsAt.set(f, ctx.diff.detectAll(2, maxArea, 4));
+    blobsAt.set(f, ctx.diff.detectAll(2, maxArea));
   }
   const s = seed.frameNumber;
   const clicked = (blobsAt.get(s) ?? [])

@@ -25,7 +25,7 @@ export function markConfidence(x: ConfidenceInputs): { confidence: number; reaso
     [1 - 0.6 * Math.min(1, x.gateRatio) ** 2, 'outside the gate'],
     [x.neighbour ? 0.55 : 1, 'another object near'],
     [x.elongation > 2.5 ? Math.max(0.4, 1 - 0.15 * (x.elongation - 2.5)) : 1, 'blurred'],
-    [x.coverageRatio < 0.9 ? Math.max(0, (x.coverageRatio - 0.6) / 0.3) * 0.6 + 0.1 : 1, 'partly hidden'],
+    [x.coverageRatio < 0.8 ? 0.3 + 0.7 * Math.max(0, (x.coverageRatio - 0.65) / 0.15) : 1, 'partly hidden'],
   ];
   const confidence = factors.reduce((p, [f]) => p * f, 1);
   const weakest = factors.reduce((a, b) => (b[0] < a[0] ? b : a));

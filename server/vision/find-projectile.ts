@@ -121,25 +121,33 @@ export async function findProjectile(ctx: TrackContext, originHint: { uPx: numbe
 
     const a = seen.get(f - 2)?.moving ?? [];
     const b = prev?.moving ?? [];
+    const alike = (x: Blob, y: Blob) => Math.max(x.area, y.area) <= 3 * Math.min(x.area, y.area) && Math.max(x.peak, y.peak) <= 3 * Math.min(x.peak, y.peak);
+    const fresh: { h: Hypothesis; err: number }[] = [];
     for (const pa of a) {
       for (const pb of b) {
-        if (pb.polarity !== pa.polarity) continue;
+        if (pb.polarity !== pa.polarity || !alike(pa, pb)) continue;
         const step = Math.hypot(pb.u - pa.u, pb.v - pa.v);
         if (step < MIN_STEP_PX || step > maxStep) continue;
-        if (Math.max(pa.area, pb.area) > 4 * Math.min(pa.area, pb.area)) continue;
-        const pc = nearest(moving, 2 * pb.u - pa.u, 2 * pb.v - pa.v, 2 + 0.2 * step, pa.polarity);
-        if (!pc) continue;
+        const cu = 2 * pb.u - pa.u;
+        const cv = 2 * pb.v - pa.v;
+        const pc = nearest(moving, cu, cv, 2 + 0.2 * step, pa.polarity);
+        if (!pc || !alike(pb, pc)) continue;
         if (active.some((h) => h.points.some((q) => q.blob === pc) && h.points.some((q) => q.blob === pb))) continue;
-        if (active.length >= MAX_HYPOTHESES) break;
-        active.push({
-          points: [
-            { frameNumber: f - 2, u: pa.u, v: pa.v, blob: pa },
-            { frameNumber: f - 1, u: pb.u, v: pb.v, blob: pb },
-            { frameNumber: f, u: pc.u, v: pc.v, blob: pc },
-          ],
+        fresh.push({
+          err: Math.hypot(pc.u - cu, pc.v - cv) / (1 + 0.2 * step),
+          h: {
+            points: [
+              { frameNumber: f - 2, u: pa.u, v: pa.v, blob: pa },
+              { frameNumber: f - 1, u: pb.u, v: pb.v, blob: pb },
+              { frameNumber: f, u: pc.u, v: pc.v, blob: pc },
+            ],
+          },
         });
       }
     }
+    // Most consistent first; in a busy frame the worst guesses are the ones left out.
+    fresh.sort((x, y) => x.err - y.err);
+    for (const { h } of fresh.slice(0, Math.max(0, MAX_HYPOTHESES - active.length))) active.push(h);
   }
   for (const h of active) if (h.points.length >= CONFIRM_POINTS && (!fallback || h.points.length > fallback.points.length)) fallback = h;
   if (!fallback) return null;

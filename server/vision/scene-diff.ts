@@ -36,12 +36,14 @@ export interface Rect {
 export interface Centroid {
   u: number;
   v: number;
-  /** Sum of the coverage weights: about the projectile's area in pixels when it is fully seen. */
+  /** Sum of the coverage inside the final ellipse (no threshold): about the projectile's area in pixels when fully seen. */
   coverage: number;
   /** Square roots of the eigenvalues of the weighted second moments (px): the blob's spread along and across its long axis. */
   majorPx: number;
   minorPx: number;
   touchesFrameEdge: boolean;
+  /** Mean temporal spread of the background under the projectile (gray levels). */
+  localSpread: number;
 }
 
 /** Noise of the difference image, in gray levels (robust σ). */
@@ -75,8 +77,12 @@ export class SceneDiff {
   private readonly stats: Mat;
   private readonly centroids: Mat;
   private readonly kernel: Mat;
+  /** Per-pixel thresholds: detection scale, and full resolution for windows (see buildThresholds). */
+  private readonly thrSmall: Mat;
+  private readonly thrFull: Mat;
+  private readonly spread: Mat;
   // Window work.
-  private win: { rect: Rect; d: Float32Array; db: Float32Array; labels: Int32Array; f: Float32Array; bg: Float32Array; polarity: 1 | -1 } | null = null;
+  private win: { rect: Rect; d: Float32Array; db: Float32Array; labels: Int32Array; f: Float32Array; bg: Float32Array; spread: Float32Array; polarity: 1 | -1 } | null = null;
 
   constructor(
     private readonly cv: OpenCv,
@@ -101,12 +107,44 @@ export class SceneDiff {
     this.stats = keep(new cv.Mat());
     this.centroids = keep(new cv.Mat());
     this.kernel = keep(cv.getStructuringElement(cv.MORPH_ELLIPSE, new cv.Size(5, 5)));
+    this.thrSmall = keep(new cv.Mat());
+    this.thrFull = keep(new cv.Mat());
+    this.spread = keep(new cv.Mat(this.height, this.width, cv.CV_32FC1));
     this.refreshBackground();
   }
 
-  /** Copy the model into OpenCV memory again (after patchBackground). */
+  /** Copy the model into OpenCV memory again (after patchBackground) and rebuild the thresholds. */
   refreshBackground() {
     this.bg.data32F.set(this.model.data);
+    this.spread.data32F.set(this.model.spread);
+    // Busy patches are busy over an area (foliage, ringing beside a post): smooth the noisy per-pixel estimate.
+    this.cv.GaussianBlur(this.spread, this.spread, new this.cv.Size(5, 5), 0, 0, this.cv.BORDER_REPLICATE);
+    this.buildThresholds();
+  }
+
+  /**
+   * Threshold maps: k × the larger of the frame's global noise and the
+   * pixel's own temporal spread (both carried to the smoothed, downscaled
+   * difference by the ratio measured on the whole frame).
+   */
+  private buildThresholds(detectK = 5, windowK = 4) {
+    const cv = this.cv;
+    const { raw, smoothed, detection } = this.noise;
+    const full = new cv.Mat();
+    try {
+      this.spread.convertTo(full, cv.CV_32F, (windowK * smoothed) / raw);
+      cv.max(full, new cv.Mat(this.height, this.width, cv.CV_32FC1, new cv.Scalar(Math.max(2, windowK * smoothed))), this.thrFull);
+      const small = new cv.Mat();
+      const floor = new cv.Mat(this.zerosSmall.rows, this.zerosSmall.cols, cv.CV_32FC1, new cv.Scalar(Math.max(2.5, detectK * detection)));
+      if (this.detectScale > 1) cv.resize(this.spread, small, new cv.Size(this.zerosSmall.cols, this.zerosSmall.rows), 0, 0, cv.INTER_AREA);
+      else this.spread.copyTo(small);
+      small.convertTo(small, cv.CV_32F, (detectK * detection) / raw);
+      cv.max(small, floor, this.thrSmall);
+      small.delete();
+      floor.delete();
+    } finally {
+      full.delete();
+    }
   }
 
   dispose() {
@@ -156,17 +194,16 @@ export class SceneDiff {
       return MAD_TO_SIGMA * medianOf(x.map((v) => Math.abs(v - med)));
     };
     this.noise = { raw: Math.max(0.5, sigma(a)), smoothed: Math.max(0.3, sigma(b)), detection: Math.max(0.3, sigma(c)) };
+    this.buildThresholds();
     return this.noise;
   }
 
   /** Compact blobs that differ from the background over the whole frame (coarse positions, full-frame pixels). */
-  detectAll(minArea: number, maxArea: number, kSigma = 5): Blob[] {
+  detectAll(minArea: number, maxArea: number): Blob[] {
     const cv = this.cv;
     this.fullDifference();
-    const thr = Math.max(2.5, kSigma * this.noise.detection);
     cv.absdiff(this.smallBlur, this.zerosSmall, this.smallAbs);
-    cv.threshold(this.smallAbs, this.smallAbs, thr, 255, cv.THRESH_BINARY);
-    this.smallAbs.convertTo(this.bin, cv.CV_8U);
+    cv.compare(this.smallAbs, this.thrSmall, this.bin, cv.CMP_GT);
     const n = cv.connectedComponentsWithStats(this.bin, this.labels, this.stats, this.centroids, 8, cv.CV_32S);
     const s = this.detectScale;
     const st = this.stats.data32S;
@@ -217,7 +254,7 @@ export class SceneDiff {
    * (background − frame), smoothed, thresholded, and split into components.
    * Returns the components (full-resolution centroids from OpenCV's stats).
    */
-  measureWindow(centreU: number, centreV: number, half: number, polarity: 1 | -1, kSigma = 4): { rect: Rect; blobs: Blob[] } | null {
+  measureWindow(centreU: number, centreV: number, half: number, polarity: 1 | -1): { rect: Rect; blobs: Blob[] } | null {
     const cv = this.cv;
     const x0 = Math.max(0, Math.floor(centreU - half));
     const y0 = Math.max(0, Math.floor(centreV - half));
@@ -228,11 +265,13 @@ export class SceneDiff {
     const cvRect = new cv.Rect(rect.x, rect.y, rect.width, rect.height);
     const fr = this.frame.roi(cvRect);
     const br = this.bg.roi(cvRect);
+    const tr = this.thrFull.roi(cvRect);
+    const sr = this.spread.roi(cvRect);
+    const spread = new cv.Mat();
     const f = new cv.Mat();
     const bgc = new cv.Mat();
     const d = new cv.Mat();
     const db = new cv.Mat();
-    const t = new cv.Mat();
     const t8 = new cv.Mat();
     const labels = new cv.Mat();
     const stats = new cv.Mat();
@@ -243,9 +282,8 @@ export class SceneDiff {
       if (polarity === 1) cv.subtract(bgc, f, d);
       else cv.subtract(f, bgc, d);
       cv.GaussianBlur(d, db, new cv.Size(3, 3), 0, 0, cv.BORDER_REPLICATE);
-      const thr = Math.max(2, kSigma * this.noise.smoothed);
-      cv.threshold(db, t, thr, 255, cv.THRESH_BINARY);
-      t.convertTo(t8, cv.CV_8U);
+      cv.compare(db, tr, t8, cv.CMP_GT);
+      sr.copyTo(spread);
       const n = cv.connectedComponentsWithStats(t8, labels, stats, cents, 8, cv.CV_32S);
       const st = stats.data32S;
       const ce = cents.data64F;
@@ -279,11 +317,12 @@ export class SceneDiff {
         labels: Int32Array.from(lab),
         f: Float32Array.from(f.data32F),
         bg: Float32Array.from(bgc.data32F),
+        spread: Float32Array.from(spread.data32F),
         polarity,
       };
       return { rect, blobs };
     } finally {
-      for (const m of [fr, br, f, bgc, d, db, t, t8, labels, stats, cents]) m.delete();
+      for (const m of [fr, br, tr, sr, spread, f, bgc, d, db, t8, labels, stats, cents]) m.delete();
     }
   }
 
@@ -299,7 +338,7 @@ export class SceneDiff {
     const cv = this.cv;
     const w = this.win;
     if (!w) return null;
-    const { rect, d, labels, f, bg, polarity } = w;
+    const { rect, d, labels, f, bg, spread, polarity } = w;
     const n = rect.width * rect.height;
     const mask = new cv.Mat(rect.height, rect.width, cv.CV_8UC1, new cv.Scalar(0));
     const grown = new cv.Mat();
@@ -336,10 +375,11 @@ export class SceneDiff {
       // Passes inside an ellipse (long along the motion, for blur): a component that grew into
       // something next to the projectile (a post's edge, compression ringing in foliage) would
       // pull a centre taken over the whole component; the ellipse cuts that off.
+      const cutPer = 2.5 / Math.max(1, peak);
       const speed = Math.hypot(shape.du, shape.dv);
       const eu = speed > 0 ? shape.du / speed : 1;
       const ev = speed > 0 ? shape.dv / speed : 0;
-      const across = 1.6 * shape.radiusPx + 2;
+      const across = 1.3 * shape.radiusPx + 1.5;
       const along = across + 0.5 * shape.blurPx;
       // First ellipse around the prediction (good to a pixel or so once tracking), then around each new centre.
       let cx = start.u - rect.x - 0.5;
@@ -353,7 +393,9 @@ export class SceneDiff {
           const y = Math.floor(i / rect.width) - cy;
           const a = (x * eu + y * ev) / along;
           const b = (-x * ev + y * eu) / across;
-          wd[i] = a * a + b * b <= 1 ? coverage[i] : 0;
+          // Soft threshold (subtract, do not cut): noise in the rim stops counting, a symmetric blob keeps its centre.
+          const w = coverage[i] - Math.min(0.3, cutPer * Math.max(this.noise.raw, spread[i]));
+          wd[i] = a * a + b * b <= 1 && w > 0 ? w : 0;
         }
         m = cv.moments(weights, false);
         if (!(m.m00 > 0)) return null;
@@ -361,6 +403,20 @@ export class SceneDiff {
         cy = m.m01 / m.m00;
       }
       if (!m) return null;
+      let spreadSum = 0;
+      let spreadN = 0;
+      let seen = 0;
+      for (let i = 0; i < n; i++) {
+        if (!g[i]) continue;
+        const x = (i % rect.width) - cx;
+        const y = Math.floor(i / rect.width) - cy;
+        const a = (x * eu + y * ev) / along;
+        const b = (-x * ev + y * eu) / across;
+        if (a * a + b * b > 1) continue;
+        seen += coverage[i];
+        spreadSum += spread[i];
+        spreadN++;
+      }
       const mu20 = m.mu20 / m.m00;
       const mu02 = m.mu02 / m.m00;
       const mu11 = m.mu11 / m.m00;
@@ -369,10 +425,11 @@ export class SceneDiff {
       return {
         u: rect.x + cx + 0.5,
         v: rect.y + cy + 0.5,
-        coverage: m.m00,
+        coverage: seen,
         majorPx: Math.sqrt(Math.max(0, tr + disc)),
         minorPx: Math.sqrt(Math.max(0, tr - disc)),
         touchesFrameEdge: touches,
+        localSpread: spreadN ? spreadSum / spreadN : 0,
       };
     } finally {
       mask.delete();

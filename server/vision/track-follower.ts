@@ -24,8 +24,6 @@ export interface TrackContext {
   from: number;
   to: number;
   signal?: AbortSignal;
-  /** Where the projectile rests before launch, when it was seen there. */
-  restPosition: { u: number; v: number } | null;
   emit: (mark: TrackedMark) => Promise<void>;
   progress: (frameNumber: number) => void;
 }
@@ -35,8 +33,7 @@ export const asPoint = (m: TrackedMark): TrackPoint => ({ frameNumber: m.frameNu
 export type MeasureOutcome =
   | { kind: 'mark'; mark: TrackedMark }
   | { kind: 'none' }
-  | { kind: 'partial' }
-  | { kind: 'rest' };
+  | { kind: 'partial' };
 
 /** Frames the track may skip (hidden) before it counts as lost. */
 const MAX_GAP_FRAMES = 8;
@@ -64,7 +61,9 @@ export async function measureAt(ctx: TrackContext, frameNumber: number, pred: Pi
   const half = Math.ceil(pred.gatePx + 3 * r + 0.5 * pred.speedPx + 4);
   const win = ctx.diff.measureWindow(pred.u, pred.v, half, ctx.polarity);
   if (!win) return { kind: 'none' };
-  const minArea = Math.max(2, 0.15 * Math.PI * r * r);
+  // Any component near the prediction may be the projectile (a faint one over foliage can be a pixel or two above
+  // threshold); the coverage check below tells it from noise.
+  const minArea = 1;
   // Distance from the prediction to the blob's box: a blob merged with clutter has its centroid off the projectile.
   const near = (b: Blob) => {
     const x0 = b.bboxLeft;
@@ -76,24 +75,23 @@ export async function measureAt(ctx: TrackContext, frameNumber: number, pred: Pi
   const candidates = win.blobs
     .filter((b) => b.area >= minArea && near(b) <= pred.gatePx)
     .sort((a, b) => near(a) - near(b) || Math.hypot(a.u - pred.u, a.v - pred.v) - Math.hypot(b.u - pred.u, b.v - pred.v));
-  if (process.env.DEBUG_AUTOMARK) console.log('  window', frameNumber, win.blobs.map((b) => [b.u.toFixed(1), b.v.toFixed(1), b.area, b.peak.toFixed(0)].join(',')).join(' | '), 'exp', expectedCoverage.toFixed(1));
   for (const blob of candidates) {
     const c = ctx.diff.centroidOf(blob.label, { radiusPx: r, du: pred.du, dv: pred.dv, blurPx: 0.6 * pred.speedPx }, pred);
     if (!c) continue;
     const dist = Math.hypot(c.u - pred.u, c.v - pred.v);
-    if (process.env.DEBUG_AUTOMARK) console.log('  cand', c.u.toFixed(2), c.v.toFixed(2), 'dist', dist.toFixed(2), 'cov', c.coverage.toFixed(1));
     if (dist > pred.gatePx) continue;
     if (c.touchesFrameEdge) return { kind: 'partial' };
-    if (ctx.restPosition && Math.hypot(c.u - ctx.restPosition.u, c.v - ctx.restPosition.v) < Math.max(0.8, 0.25 * pred.speedPx)) return { kind: 'rest' };
     const coverageRatio = expectedCoverage > 0 ? c.coverage / expectedCoverage : 1;
-    // Less than about two thirds of the usual coverage: cut by a post or a branch, so the centre would be biased.
-    if (coverageRatio < 0.7) return { kind: 'partial' };
+    // Less than two thirds of the usual coverage: cut by a post or a branch, so the centre would be biased.
+    if (coverageRatio < 0.65) return { kind: 'partial' };
     // Another object: a blob of at least half the projectile's size and clearly above the noise, close by.
     const others = win.blobs.filter(
-      (b) => b !== blob && b.area >= 0.5 * blob.area && b.peak >= 6 * ctx.diff.noise.smoothed && Math.hypot(b.u - c.u, b.v - c.v) < 3 * r + 6,
+      (b) => b !== blob && b.area >= Math.max(3, 0.5 * blob.area) && b.peak >= 6 * ctx.diff.noise.smoothed && Math.hypot(b.u - c.u, b.v - c.v) < 3 * r + 6,
     );
+    // Contrast against the noise here: the frame's own, or the busier temporal spread of this patch (foliage, ringing).
+    const localNoise = Math.max(ctx.diff.noise.smoothed, (c.localSpread * ctx.diff.noise.smoothed) / ctx.diff.noise.raw);
     const score = markConfidence({
-      snr: blob.peak / ctx.diff.noise.smoothed,
+      snr: blob.peak / localNoise,
       gateRatio: dist / pred.gatePx,
       neighbour: others.length > 0,
       elongation: c.majorPx / Math.max(0.3, c.minorPx),
@@ -108,26 +106,44 @@ export async function measureAt(ctx: TrackContext, frameNumber: number, pred: Pi
 }
 
 /**
+ * Going backward: is this the projectile at rest before launch? It is when the
+ * frame before shows it in the same place (in flight it moves a step a frame;
+ * on the first frame of flight it has already moved a part of one).
+ */
+async function sitsStill(ctx: TrackContext, mark: TrackedMark, pred: Prediction): Promise<boolean> {
+  const f = mark.frameNumber - 1;
+  if (f < ctx.from) return false;
+  const still = Math.max(0.5, 0.1 * pred.speedPx);
+  const out = await measureAt(ctx, f, { u: mark.uPx, v: mark.vPx, gatePx: 2 * still, speedPx: 0, du: pred.du, dv: pred.dv }, 0);
+  return out.kind === 'mark' && Math.hypot(out.mark.uPx - mark.uPx, out.mark.vPx - mark.vPx) < still;
+}
+
+/**
  * Extends `history` frame by frame in `direction` until the projectile leaves
  * the frame, is lost, reaches its rest position (backward) or the range ends.
  */
 export async function follow(ctx: TrackContext, history: TrackedMark[], direction: 1 | -1): Promise<{ endReason: AutoMarkEndReason | 'rest'; added: TrackedMark[] }> {
   const added: TrackedMark[] = [];
   const all = [...history];
-  const edge = direction === 1 ? all.reduce((m, p) => Math.max(m, p.frameNumber), -Infinity) : all.reduce((m, p) => Math.min(m, p.frameNumber), Infinity);
+  // Forward runs from the earliest mark, so frames inside the starting chain that were not measured get their turn.
+  const have = new Set(all.map((m) => m.frameNumber));
+  const edge = all.reduce((m, p) => Math.min(m, p.frameNumber), Infinity);
   let misses = 0;
   const maxGap = direction === 1 ? MAX_GAP_FRAMES : 2;
   for (let f = edge + direction; direction === 1 ? f <= ctx.to : f >= ctx.from; f += direction) {
     throwIfAborted(ctx.signal);
+    if (have.has(f)) {
+      misses = 0;
+      continue;
+    }
     const pred = predictAt(all.map(asPoint), f);
     const r = ctx.radiusPx;
     const W = ctx.store.width;
     const H = ctx.store.height;
     if (pred.u < -r || pred.v < -r || pred.u > W + r || pred.v > H + r) return { endReason: 'left-frame', added };
     const out = await measureAt(ctx, f, pred, medianCoverage(all, f));
-    if (process.env.DEBUG_AUTOMARK) console.log('follow', f, out.kind, pred.u.toFixed(2), pred.v.toFixed(2), pred.gatePx.toFixed(2), out.kind === 'mark' ? out.mark : '');
+    if (direction === -1 && out.kind === 'mark' && (await sitsStill(ctx, out.mark, pred))) return { endReason: 'rest', added };
     ctx.progress(f);
-    if (out.kind === 'rest') return { endReason: 'rest', added };
     if (out.kind === 'mark') {
       misses = 0;
       all.push(out.mark);

@@ -5,7 +5,11 @@ import { buildCalibrationTransform } from '../../../shared/geometry/calibration-
 import { fitShot } from '../../../shared/physics/fit-shot';
 import { dragKFromCd, simulateTrajectory } from '../../../shared/physics/flight';
 import type { FitShotResult } from '../../../shared/physics/types';
+import { CLICK_SIGMA_PX, PROJECTILE_DIAMETER_SIGMA_M, PROJECTILE_MASS_SIGMA_KG } from '../../../shared/defaults';
 import { DEFAULT_REVIEW_THRESHOLD, type AutoMarkOutcome } from '../types';
+
+/** Tolerance of the scale bar's stated length, as the API fit scenario enters it (tests/support/fit-scenario.ts). */
+const SCALE_LENGTH_TOL_M = 0.002;
 
 export interface Accuracy {
   /** Frames in flight where the projectile is fully visible. */
@@ -57,11 +61,13 @@ export interface FitCheck {
  * fitShot on the automatic marks at or above the review threshold (the
  * product's default), through the calibration a person would set from the
  * clip's scale bar, launch point and level line (shared/geometry, as the
- * server's fit input builder does), with frame times from the truth file.
+ * server's fit input builder does), with frame times from the truth file and
+ * the input uncertainties the server states (shared/defaults; the scale's from
+ * the calibration). `statOnly` leaves those out: intervals from marking scatter alone.
  */
-export function fitFromMarks(truth: ClipTruth, outcome: AutoMarkOutcome): FitCheck {
+export function fitFromMarks(truth: ClipTruth, outcome: AutoMarkOutcome, statOnly = false): FitCheck {
   const transform = buildCalibrationTransform({
-    scale: { p1: truth.scaleReference.p1, p2: truth.scaleReference.p2, lengthM: truth.scaleReference.lengthM, lengthTolM: 0, endpointSigmaPx: 0 },
+    scale: { p1: truth.scaleReference.p1, p2: truth.scaleReference.p2, lengthM: truth.scaleReference.lengthM, lengthTolM: SCALE_LENGTH_TOL_M, endpointSigmaPx: CLICK_SIGMA_PX },
     origin: truth.originPx,
     level: { kind: 'line', p1: truth.levelLine.p1, p2: truth.levelLine.p2 },
     downrange: 'right',
@@ -72,7 +78,16 @@ export function fitFromMarks(truth: ClipTruth, outcome: AutoMarkOutcome): FitChe
     const w = transform.imageToWorld({ u: m.uPx, v: m.vPx });
     return { tS: truth.frames[m.frameNumber].tS, xM: w.x, yM: w.y };
   });
-  const fit = fitShot({ marks, massKg: truth.massKg, diameterM: truth.diameterM, airDensityKgM3: truth.airDensityKgM3, gravityMps2: truth.gravityMps2 });
+  const fit = fitShot({
+    marks,
+    massKg: truth.massKg,
+    diameterM: truth.diameterM,
+    airDensityKgM3: truth.airDensityKgM3,
+    gravityMps2: truth.gravityMps2,
+    uncertainties: statOnly
+      ? undefined
+      : { massKg: PROJECTILE_MASS_SIGMA_KG, diameterM: PROJECTILE_DIAMETER_SIGMA_M, scaleRelative: transform.scaleRelUncertainty },
+  });
   const angle = (truth.launchAngleDeg * Math.PI) / 180;
   const k = dragKFromCd(truth.dragCoefficient, truth.diameterM, truth.massKg, truth.airDensityKgM3);
   const dt = fit.tRefS - truth.launchTimeS;
