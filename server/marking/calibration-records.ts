@@ -9,6 +9,14 @@ import type { Calibration, CalibrationCreateBody } from '../../shared/schemas/ma
 import type { Db } from '../db/client';
 import { calibrations } from '../db/schema/marking';
 import { users } from '../db/schema/users';
+import { CLICK_SIGMA_PX } from '../../shared/defaults';
+import { planeOffsetFactor, type PlaneOffsetInput } from '../../shared/geometry/plane-offset';
+import type { LensCorrection } from '../../shared/schemas/camera';
+
+function planeOffsetView(input: PlaneOffsetInput) {
+  const r = planeOffsetFactor(input);
+  return { factor: r.factor, relStdUncertainty: r.relStdUncertainty };
+}
 
 // The one place that turns calibration rows (flat columns) into geometry and
 // API views. Anything that needs metres from a clip's marks (marks API, fits)
@@ -33,6 +41,12 @@ export function calibrationGeometryOf(row: CalibrationRow): CalibrationGeometry 
         : { kind: 'angle', rollDeg: row.levelAngleDeg ?? 0 },
     downrange: row.downrange,
     plane: row.planeCorrection ? { corners: row.planeCorrection.corners, widthM: row.planeCorrection.widthM, heightM: row.planeCorrection.heightM } : null,
+    lens: row.lens ? { k1: row.lens.k1, k2: row.lens.k2, frameWidthPx: row.lens.frameWidthPx, frameHeightPx: row.lens.frameHeightPx } : null,
+    planeOffset: row.planeOffset,
+    levelUncertainty: {
+      ...(row.levelEndpointSigmaPx !== null ? { endpointSigmaPx: row.levelEndpointSigmaPx } : {}),
+      ...(row.rollTolDeg !== null ? { rollTolDeg: row.rollTolDeg } : {}),
+    },
   };
 }
 
@@ -45,8 +59,12 @@ export async function currentCalibrationRow(db: Pick<Db, 'select'>, clipId: stri
   return row ?? null;
 }
 
-/** Column values for a new version, from the validated body and the transform it defines. */
-export function calibrationValues(body: CalibrationInput, transform: CalibrationTransform) {
+/** Column values for a new version, from the validated body, the transform it defines and the lens correction it states or fitted. */
+export function calibrationValues(
+  body: Omit<CalibrationInput, 'lens' | 'planeOffset' | 'levelUncertainty'> & Partial<Pick<CalibrationInput, 'planeOffset' | 'levelUncertainty'>>,
+  transform: CalibrationTransform,
+  lens: LensCorrection | null = null,
+) {
   const level = body.level;
   return {
     scaleP1UPx: body.scale.p1.u,
@@ -72,6 +90,18 @@ export function calibrationValues(body: CalibrationInput, transform: Calibration
         : null,
     pixelsPerMetre: transform.pixelsPerMetre,
     scaleRelUncertainty: transform.scaleRelUncertainty,
+    lens,
+    planeOffset: body.planeOffset
+      ? {
+        planeDistanceM: body.planeOffset.planeDistanceM,
+        planeDistanceTolM: body.planeOffset.planeDistanceTolM,
+        referenceOffsetM: body.planeOffset.referenceOffsetM,
+        referenceOffsetTolM: body.planeOffset.referenceOffsetTolM,
+      }
+      : null,
+    levelEndpointSigmaPx: level.kind === 'line' ? body.levelUncertainty?.endpointSigmaPx ?? CLICK_SIGMA_PX : null,
+    rollTolDeg: level.kind === 'angle' ? body.levelUncertainty?.rollTolDeg ?? 0 : null,
+    rollStdUncertaintyRad: transform.rollStdUncertaintyRad,
     note: body.note ?? null,
   };
 }
@@ -88,6 +118,9 @@ export function calibrationView(row: CalibrationRow, creatorName: string | null)
     downrange: row.downrange,
     plane: row.planeCorrection,
     rollDeg: row.rollDeg,
+    rollStdUncertaintyDeg: (row.rollStdUncertaintyRad * 180) / Math.PI,
+    lens: row.lens,
+    planeOffset: row.planeOffset ? { ...row.planeOffset, ...planeOffsetView(row.planeOffset) } : null,
     pixelsPerMetre: row.pixelsPerMetre,
     scaleRelUncertainty: row.scaleRelUncertainty,
     note: row.note,

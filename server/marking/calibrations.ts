@@ -10,7 +10,9 @@ import { clips } from '../db/schema/clips';
 import { calibrations } from '../db/schema/marking';
 import { badRequest } from '../http/problem';
 import { calibrationValues, listCalibrationViews } from './calibration-records';
+import { lensCorrectionOf } from './lens-correction';
 import { loadClip } from './scope';
+import type { LensCorrection } from '../../shared/schemas/camera';
 
 // Calibration versions of a clip: scale reference, origin, level and optional
 // plane correction. Never edited in place: each change is a new version, so a
@@ -33,8 +35,16 @@ export async function currentClipCalibration(db: Db, teamId: string, clipId: str
 export async function calibrateClip(db: Db, actor: Actor, clipId: string, body: z.output<typeof CalibrationCreateBody>): Promise<Calibration | undefined> {
   const clip = await loadClip(db, actor.teamId, clipId);
   let transform;
+  let lens: LensCorrection | null;
   try {
-    transform = buildCalibrationTransform(body);
+    // The lens's normalised radius refers to the served (upright) frame, as the clicks do.
+    const [size] = await db.select({ width: clips.width, height: clips.height, rotationDeg: clips.rotationDeg }).from(clips).where(eq(clips.id, clip.id));
+    const turned = size.rotationDeg === 90 || size.rotationDeg === 270;
+    lens = lensCorrectionOf(body.lens, { widthPx: turned ? size.height : size.width, heightPx: turned ? size.width : size.height });
+    transform = buildCalibrationTransform({
+      ...body,
+      lens: lens ? { k1: lens.k1, k2: lens.k2, frameWidthPx: lens.frameWidthPx, frameHeightPx: lens.frameHeightPx } : null,
+    });
   } catch (err) {
     if (err instanceof GeometryError) throw badRequest(err.message, { errors: [{ path: `body.${err.field}`, message: err.message }] });
     throw err;
@@ -46,7 +56,7 @@ export async function calibrateClip(db: Db, actor: Actor, clipId: string, body: 
     const version = (last?.version ?? 0) + 1;
     const [row] = await tx
       .insert(calibrations)
-      .values({ clipId: clip.id, version, ...calibrationValues(body, transform), createdBy: actor.userId })
+      .values({ clipId: clip.id, version, ...calibrationValues(body, transform, lens), createdBy: actor.userId })
       .returning({ id: calibrations.id });
     await audit(tx, {
       teamId: actor.teamId,
@@ -54,7 +64,10 @@ export async function calibrateClip(db: Db, actor: Actor, clipId: string, body: 
       action: 'calibration.create',
       targetType: 'clip',
       targetId: clip.id,
-      detail: { calibrationId: row.id, version, pixelsPerMetre: transform.pixelsPerMetre, planeCorrection: body.plane !== null },
+      detail: {
+        calibrationId: row.id, version, pixelsPerMetre: transform.pixelsPerMetre, planeCorrection: body.plane !== null,
+        lens: lens ? lens.source : null, planeOffset: body.planeOffset !== null,
+      },
     });
     return row.id;
   });

@@ -1,6 +1,7 @@
 import { z } from 'zod';
 import { CLICK_SIGMA_PX, SNAP_WINDOW_PX } from '../defaults';
 import { PixelPoint } from '../geometry/points';
+import { LensCorrection, LensInput, LevelUncertaintyInput, PlaneOffsetInput } from './camera';
 import { MarkSource } from './auto-mark';
 import { Uuid } from './common';
 
@@ -65,6 +66,12 @@ export const CalibrationCreateBody = z
     level: LevelInput,
     downrange: Downrange.default('right'),
     plane: PlaneCorrectionInput.nullable().default(null),
+    /** Lens correction: straight edges to fit, or known coefficients (shared/schemas/camera.ts). */
+    lens: LensInput.nullable().default(null),
+    /** Camera-to-plane distance and the scale reference's offset from the plane; null: the reference lies in the plane. */
+    planeOffset: PlaneOffsetInput.nullable().default(null),
+    /** Click σ of the level line's end points, or the ± tolerance of a stated roll. */
+    levelUncertainty: LevelUncertaintyInput.nullable().default(null),
     note: z.string().trim().max(500).optional(),
   })
   .superRefine((body, ctx) => {
@@ -108,6 +115,21 @@ export const Calibration = z.object({
     .nullable(),
   /** Camera roll actually used, degrees CCW on screen (from the line or as stated). */
   rollDeg: z.number(),
+  /** Its standard uncertainty, degrees (level-line clicks through the corrections, or the stated tolerance). */
+  rollStdUncertaintyDeg: z.number(),
+  /** The lens correction in use, with its coefficients' uncertainties and the straightness residual; null: an ideal lens. */
+  lens: LensCorrection.nullable(),
+  /** The scale reference's offset from the flight plane; factor = (D − δ)/D multiplies the reference's pixels per metre. Null: none stated. */
+  planeOffset: z
+    .object({
+      planeDistanceM: z.number(),
+      planeDistanceTolM: z.number(),
+      referenceOffsetM: z.number(),
+      referenceOffsetTolM: z.number(),
+      factor: z.number(),
+      relStdUncertainty: z.number(),
+    })
+    .nullable(),
   pixelsPerMetre: z.number(),
   /** Relative standard uncertainty of pixelsPerMetre (dimensionless, e.g. 0.004 = 0.4 %). */
   scaleRelUncertainty: z.number(),
