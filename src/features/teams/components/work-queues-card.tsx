@@ -50,7 +50,7 @@ function QueueBox({ queue }: { queue: WorkQueue }) {
       <div className="flex items-center justify-between gap-2">
         <span className="text-body font-medium text-ink">{queue.title}</span>
         <Badge tone={queue.count > 0 ? 'signal' : 'ok'}>
-          <span data-testid="queue-count">{queue.count}</span> {queue.count > 0 ? 'waiting' : 'none'}
+          <span data-testid="queue-count">{queue.count}</span> waiting
         </Badge>
       </div>
       {queue.items.length > 0 && (
