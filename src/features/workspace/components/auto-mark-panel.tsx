@@ -6,20 +6,25 @@ import { FormError } from '@/components/ui/form-error';
 import { ProgressBar } from '@/components/ui/progress-bar';
 import { confidenceWords } from '../editor/review-pass';
 import type { AutoMarking } from '../hooks/use-auto-mark';
-import type { ReviewPass } from '../hooks/use-review-pass';
+import type { Editor } from '../editor/editor-store';
+import { useAutoMarkKeys } from '../hooks/use-auto-mark-keys';
+import { useReviewPass } from '../hooks/use-review-pass';
 import { ReviewThresholdForm } from './review-threshold-form';
 
 interface AutoMarkPanelProps {
   teamId: string;
+  editor: Editor;
   auto: AutoMarking;
-  review: ReviewPass;
   threshold: number;
   /** May change the team's review threshold (those who run fits). */
   canSetThreshold: boolean;
 }
 
 /** Start automatic marking, watch it work, then step through the frames it was unsure about. */
-export function AutoMarkPanel({ teamId, auto, review, threshold, canSetThreshold }: AutoMarkPanelProps) {
+export function AutoMarkPanel({ teamId, editor, auto, threshold, canSetThreshold }: AutoMarkPanelProps) {
+  // The review pass follows the shown frame; kept here so stepping re-renders this panel, not the page.
+  const review = useReviewPass(editor, threshold);
+  useAutoMarkKeys(auto, review);
   const run = auto.run;
   const toCheck = review.frames.length;
   return (

@@ -9,10 +9,13 @@ import { fitToWindow, panTransition, screenToImage, wheelZoomFactor, zoomAtCurso
 import { useEditor } from '../hooks/use-editor';
 import { CalibrationOverlay } from './calibration-overlay';
 import { Loupe } from './loupe';
-import { MarkNotesOverlay, type MarkNote } from './mark-notes-overlay';
+import { useMarkNotes } from '../hooks/use-mark-notes';
+import { MarkNotesOverlay } from './mark-notes-overlay';
 import { MarksOverlay } from './marks-overlay';
 import { PreviewOverlay } from './preview-overlay';
 import { recordFrameDrawn } from './frame-timings';
+
+const NO_FRAMES = new Set<number>();
 
 interface FrameStageProps {
   editor: Editor;
@@ -23,8 +26,8 @@ interface FrameStageProps {
   spaceHeld: MutableRefObject<boolean>;
   /** Bumped to ask for fit-to-window again (the "0" key). */
   fitRequest: number;
-  /** Words beside marks: the automatic marker's confidence, marks off the preview curve. */
-  notes?: MarkNote[];
+  /** For the words beside marks: which frames sit off the preview curve, and the team's review threshold. */
+  markNotes?: { offCurve: Set<number>; threshold: number };
 }
 
 /**
@@ -32,7 +35,8 @@ interface FrameStageProps {
  * (redrawn when stepping) and the overlay (marks, calibration, curves, loupe),
  * so stepping repaints one bitmap and the overlay stays cheap.
  */
-export function FrameStage({ editor, frameCache, imageSize, transform, preview, spaceHeld, fitRequest, notes }: FrameStageProps) {
+export function FrameStage({ editor, frameCache, imageSize, transform, preview, spaceHeld, fitRequest, markNotes }: FrameStageProps) {
+  const notes = useMarkNotes(editor, markNotes?.offCurve ?? NO_FRAMES, markNotes?.threshold ?? 0);
   const box = useRef<HTMLDivElement>(null);
   const frameLayer = useRef<Konva.Layer>(null);
   const [size, setSize] = useState({ width: 0, height: 0 });
@@ -106,6 +110,8 @@ export function FrameStage({ editor, frameCache, imageSize, transform, preview, 
   }, [size, imageSize, fitRequest, editor]);
 
   // Frame-step timing for `npm run bench`: the moment the frame layer has drawn the new frame.
+  // The layer exists only once the box has a size, so the listener is attached again when it first has one.
+  const hasSize = size.width > 0;
   useEffect(() => {
     const layer = frameLayer.current;
     if (!layer) return;
@@ -114,8 +120,7 @@ export function FrameStage({ editor, frameCache, imageSize, transform, preview, 
     return () => {
       layer.off('draw', onDraw);
     };
-    // The layer exists only once the box has a size.
-  }, [editor, size.width > 0]); // eslint-disable-line react-hooks/exhaustive-deps
+  }, [editor, hasSize]);
 
   const stagePoint = (stage: Konva.Stage | null) => stage?.getPointerPosition() ?? null;
 

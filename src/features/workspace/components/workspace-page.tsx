@@ -19,9 +19,7 @@ import { CAN } from '@shared/roles';
 import { useReviewThreshold } from '@/api/auto-mark/get-auto-mark-settings';
 import { useCurrentTeam } from '@/lib/use-current-team';
 import { useAutoMark } from '../hooks/use-auto-mark';
-import { useAutoMarkKeys } from '../hooks/use-auto-mark-keys';
-import { useMarkNotes, useOffCurveFrames } from '../hooks/use-mark-notes';
-import { useReviewPass } from '../hooks/use-review-pass';
+import { useOffCurveFrames } from '../hooks/use-mark-notes';
 import { AutoMarkPanel } from './auto-mark-panel';
 import { CalibrationCard } from './calibration-card';
 import { FrameScrubber } from './frame-scrubber';
@@ -75,14 +73,14 @@ function Workspace({ teamId, clipId }: { teamId: string; clipId: string }) {
   const nextTS = worldMarks ? placed.nextTS : null;
   const preview = useFlightPreview(worldMarks, nextTS);
 
-  // Automatic marking, its review pass, and the words beside the marks.
+  // Automatic marking and the marks off the preview curve. The review pass and the
+  // words beside the marks follow the shown frame, so they live in the panel and
+  // the stage: stepping a frame must not re-render this whole page.
   const { can } = useCurrentTeam();
   const threshold = useReviewThreshold(teamId);
   const auto = useAutoMark(teamId, editor, saving);
-  const review = useReviewPass(editor, threshold);
-  useAutoMarkKeys(auto, review);
   const offCurve = useOffCurveFrames(placed, preview, transform);
-  const notes = useMarkNotes(editor, offCurve, threshold);
+  const markNotes = useMemo(() => ({ offCurve, threshold }), [offCurve, threshold]);
 
   const addTrack = (kind: TrackKind) => {
     const count = data.tracks.filter((t) => t.kind === kind).length;
@@ -136,7 +134,7 @@ function Workspace({ teamId, clipId }: { teamId: string; clipId: string }) {
               preview={preview}
               spaceHeld={spaceHeld}
               fitRequest={fitRequest}
-              notes={notes}
+              markNotes={markNotes}
             />
           </div>
           <FrameScrubber editor={editor} captureFps={clip.captureFps} />
@@ -145,7 +143,7 @@ function Workspace({ teamId, clipId }: { teamId: string; clipId: string }) {
         </div>
         <aside className="flex flex-col gap-3" aria-label="Panels">
           <TracksPanel editor={editor} onAdd={addTrack} adding={data.createTrack.isPending} teamId={teamId} clipId={clipId} />
-          <AutoMarkPanel teamId={teamId} auto={auto} review={review} threshold={threshold} canSetThreshold={can(CAN.runFits)} />
+          <AutoMarkPanel teamId={teamId} editor={editor} auto={auto} threshold={threshold} canSetThreshold={can(CAN.runFits)} />
           <CalibrationCard editor={editor} teamId={teamId} clipId={clipId} saved={data.savedCalibration} transform={transformResult} />
           <PreviewLegend preview={preview} markCount={markCount} calibrated={!!transform} />
         </aside>
