@@ -36,6 +36,8 @@ async function main() {
   try {
     // SKIP_TYPECHECK=1 / SKIP_BUILD=1 shorten a developer's focused run (`npm test -- tests/api/x.test.ts`); CI never sets them.
     if (!process.env.SKIP_TYPECHECK) await step('type-check (tsc --noEmit)', bin(root, 'tsc'), ['--noEmit', '-p', 'tsconfig.json']);
+    // A lint error (house rules: feature boundaries, shared/ on its own, process.env only in server/config.ts) fails the run.
+    if (!process.env.SKIP_LINT) await step('lint (eslint)', bin(root, 'eslint'), ['.', '--cache', '--cache-location', path.join(root, 'node_modules', '.cache', 'eslint/')]);
     if (!process.env.SKIP_BUILD) await step('client build (vite build)', bin(root, 'vite'), ['build', '--logLevel', 'warn', '--outDir', env.CLIENT_DIST, '--emptyOutDir']);
     await step('tests (vitest: unit, api, e2e)', bin(root, 'vitest'), [
       'run',

@@ -117,6 +117,19 @@ export function trustProxySetting(value: string | undefined): boolean | number |
   return v;
 }
 
+/**
+ * The ffmpeg and ffprobe binaries (FFMPEG_PATH, FFPROBE_PATH; by default whatever PATH finds).
+ * Functions rather than Config fields: the media module and the health probe run in the
+ * server, the worker and the command-line tools alike, none of which hands them a Config.
+ */
+export function ffmpegBinary(env: NodeJS.ProcessEnv = process.env): string {
+  return env.FFMPEG_PATH || 'ffmpeg';
+}
+
+export function ffprobeBinary(env: NodeJS.ProcessEnv = process.env): string {
+  return env.FFPROBE_PATH || 'ffprobe';
+}
+
 export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
   const databaseUrl = env.DATABASE_URL;
   if (!databaseUrl) throw new Error('DATABASE_URL is not set (npm start and npm test set it for you).');

@@ -6,6 +6,7 @@
 import { execFile } from 'node:child_process';
 import { promisify } from 'node:util';
 import type pg from 'pg';
+import { ffmpegBinary } from '../config';
 
 const run = promisify(execFile);
 
@@ -25,7 +26,7 @@ let probeCount = 0;
 function probeFfmpeg(): Promise<FfmpegState> {
   if (probing) return probing;
   probeCount += 1;
-  probing = run(process.env.FFMPEG_PATH || 'ffmpeg', ['-hide_banner', '-version'], { timeout: 10_000 })
+  probing = run(ffmpegBinary(), ['-hide_banner', '-version'], { timeout: 10_000 })
     .then(({ stdout }) => ({ ok: true, version: stdout.split('\n')[0], checkedAt: Date.now() }))
     .catch(() => ({ ok: false, error: 'ffmpeg not found on PATH', checkedAt: Date.now() }))
     .then((state) => {

@@ -5,6 +5,7 @@
 import { createInterface } from 'node:readline';
 import path from 'node:path';
 import ffmpeg from 'fluent-ffmpeg';
+import { ffmpegBinary, ffprobeBinary } from '../config';
 import { killChildGroup, spawnInGroup } from './process-groups';
 
 export interface ProbeResult {
@@ -83,7 +84,7 @@ export function probe(file: string): Promise<ProbeResult> {
 }
 
 function ffprobePath(): string {
-  return process.env.FFPROBE_PATH || 'ffprobe';
+  return ffprobeBinary();
 }
 
 /**
@@ -190,7 +191,7 @@ export function frameFileName(frameNumber: number): string {
 const FRAME_COUNTER = /frame=\s*(\d+)/;
 
 function ffmpegPath(): string {
-  return process.env.FFMPEG_PATH || 'ffmpeg';
+  return ffmpegBinary();
 }
 
 /**

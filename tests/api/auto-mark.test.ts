@@ -214,7 +214,7 @@ describe('bad input gets a clear answer', () => {
 
   it('refuses a seed outside the frame (400) and stores no run', async () => {
     const trackId = await newTrack('Seed');
-    const { width, height } = generated.truth;
+    const { width } = generated.truth;
     for (const seed of [
       { frameNumber: 5, uPx: width + 10, vPx: 20 },
       { frameNumber: 5, uPx: 20, vPx: -1 },

@@ -1,5 +1,5 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
-import type { Series, SeriesCreateBody, SeriesUpdateBody } from '@shared/schemas/records';
+import type { Series, SeriesUpdateBody } from '@shared/schemas/records';
 import { apiPatch } from '@/lib/api-client';
 import { teamPath } from '@/api/api-paths';
 import { invalidateRecordViews } from '@/api/invalidate-records';

@@ -1,5 +1,5 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
-import type { Shot, ShotCreateBody, ShotUpdateBody } from '@shared/schemas/records';
+import type { Shot, ShotUpdateBody } from '@shared/schemas/records';
 import { apiPatch } from '@/lib/api-client';
 import { teamPath } from '@/api/api-paths';
 import { invalidateRecordViews } from '@/api/invalidate-records';

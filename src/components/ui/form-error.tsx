@@ -1,5 +1,5 @@
 import { ApiError } from '@/lib/api-client';
-import { plainFieldError, problemSummary } from '@/lib/form-errors';
+import { problemSummary } from '@/lib/form-errors';
 
 export interface FormErrorProps {
   /** Whatever a mutation or query threw; nothing renders while it is null. */

@@ -56,7 +56,7 @@ export function FrameOverlay({ teamId, fit, plots }: { teamId: string; fit: FitD
   }, [fit.snapshot.calibration.geometry]);
 
   // One wrapper element throughout: the size observer stays attached to it.
-  let body: ReactNode = null;
+  let body: ReactNode;
   if (failed) body = <p className="text-body text-ink-soft">The frame image could not be loaded, so the overlay is not shown.</p>;
   else if (!transform) body = <p className="text-body text-ink-soft">The stored calibration cannot be drawn.</p>;
   else if (!image || width === 0) body = <p className="text-body text-ink-faint">Loading frame {frame}…</p>;

@@ -1,4 +1,4 @@
-import { useMemo, useState } from 'react';
+import { useCallback, useMemo, useState } from 'react';
 import { ROLE_LABELS, type Role } from '@shared/roles';
 import type { Member } from '@shared/schemas/teams';
 import { Badge } from '@/components/ui/badge';
@@ -32,7 +32,7 @@ export function MembersTable({ teamId, teamName, members, loading, myUserId, can
   // Making someone an admin hands them the whole team: it waits for a confirmation.
   const [promoting, setPromoting] = useState<Member | null>(null);
   const adminCount = members.filter((m) => m.role === 'admin').length;
-  const applyRole = (member: Member, role: Role) => {
+  const applyRole = useCallback((member: Member, role: Role) => {
     setChanged(null);
     changeRole.mutate(
       { userId: member.userId, role },
@@ -43,7 +43,7 @@ export function MembersTable({ teamId, teamName, members, loading, myUserId, can
         },
       },
     );
-  };
+  }, [changeRole]);
 
   const columns = useMemo(
     () =>
@@ -104,7 +104,7 @@ export function MembersTable({ teamId, teamName, members, loading, myUserId, can
             ]
           : []),
       ]),
-    [canManage, myUserId, changeRole, adminCount],
+    [canManage, myUserId, changeRole, applyRole, adminCount],
   );
 
   return (

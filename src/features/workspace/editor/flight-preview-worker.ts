@@ -12,10 +12,11 @@ export interface PreviewRequest {
 
 self.onmessage = (event: MessageEvent<PreviewRequest>) => {
   const { id, marks, nextTS } = event.data;
-  let preview = null;
+  let preview: ReturnType<typeof flightPreview> | null;
   try {
     preview = flightPreview(marks, nextTS);
   } catch {
+    // Too few marks, or a fit that does not converge yet: the overlay simply shows no preview.
     preview = null;
   }
   (self as unknown as Worker).postMessage({ id, preview });
