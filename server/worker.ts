@@ -20,20 +20,7 @@ await applyMigrations(database.db);
 const scratch = await prepareScratch(config.scratchDir);
 const storage = createStorage(config, scratch.dir);
 const queue = await startJobQueue(config, database.db);
-await queue.startWorker({
-  db: database.db,
-  storage,
-  config,
-  scratchDir: scratch.dir,
-  log: (line) => process.stdout.write(`${line}\n`),
-});
-process.stdout.write(
-  `[arcbench] worker ${process.pid}: ${config.workerConcurrency} job(s) at a time, queue schema ${config.jobSchema}, storage ${describeStorage(config)}, scratch ${scratch.dir}\n`,
-);
-process.send?.({ ready: true, scratchDir: scratch.dir });
-// Auto-mark jobs need OpenCV: load it once per worker now, not on the first job (it takes a few seconds).
-void loadOpenCv().catch((err: Error) => process.stdout.write(`[arcbench] OpenCV did not load (auto-marking will fail): ${err.message}\n`));
-
+// Signals are handled before anything slow (OpenCV's start-up blocks for seconds), so a SIGTERM is never missed.
 let stopping = false;
 async function shutdown(signal: string) {
   if (stopping) return;
@@ -46,3 +33,16 @@ async function shutdown(signal: string) {
 }
 process.on('SIGINT', () => void shutdown('SIGINT'));
 process.on('SIGTERM', () => void shutdown('SIGTERM'));
+await queue.startWorker({
+  db: database.db,
+  storage,
+  config,
+  scratchDir: scratch.dir,
+  log: (line) => process.stdout.write(`${line}\n`),
+});
+process.stdout.write(
+  `[arcbench] worker ${process.pid}: ${config.workerConcurrency} job(s) at a time, queue schema ${config.jobSchema}, storage ${describeStorage(config)}, scratch ${scratch.dir}\n`,
+);
+// Auto-mark jobs need OpenCV: load it once per worker now, not on the first job (it takes a few seconds).
+void loadOpenCv().catch((err: Error) => process.stdout.write(`[arcbench] OpenCV did not load (auto-marking will fail): ${err.message}\n`));
+process.send?.({ ready: true, scratchDir: scratch.dir });
