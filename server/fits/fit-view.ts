@@ -1,6 +1,6 @@
 // Reading fits for the API: one fit in full (result, snapshot, staleness,
 // review, audit trail) or a list of summaries.
-import { aliasedTable, and, asc, desc, eq } from 'drizzle-orm';
+import { aliasedTable, and, asc, count, desc, eq, lt, lte, ne, sql } from 'drizzle-orm';
 import type { FitAuditEntry, FitDetail, FitState, FitSummary, Staleness } from '../../shared/schemas/fits';
 import type { Db } from '../db/client';
 import { auditEvents } from '../db/schema/audit-events';
@@ -140,5 +140,28 @@ export async function loadFitDetail(db: Db, teamId: string, fitId: string): Prom
     result: row.result,
     snapshot: row.snapshot,
     audit: await fitAuditTrail(db, fitId),
+    sameInputsAs: await earlierFitWithSameInputs(db, teamId, String(row.shotId), fitId, String(row.inputHash)),
   };
+}
+
+/**
+ * The first earlier fit of the same shot whose inputs hash the same (server/fits/input-hash.ts): a run on
+ * identical inputs gives identical numbers, so the page says which fit it repeats instead of running silently.
+ * `number` counts the shot's fits in the order they ran, as the shot's fit list does.
+ */
+export async function earlierFitWithSameInputs(db: Db, teamId: string, shotId: string, fitId: string, hash: string): Promise<FitDetail['sameInputsAs']> {
+  // Times are compared in SQL: timestamptz keeps microseconds that a JavaScript Date would round away.
+  const createdAtOf = (id: string) => sql`(select f0.created_at from ${fits} f0 where f0.id = ${id})`;
+  const [earlier] = await db
+    .select({ id: fits.id, createdAt: fits.createdAt, state: fits.state })
+    .from(fits)
+    .where(and(eq(fits.teamId, teamId), eq(fits.shotId, shotId), eq(fits.inputHash, hash), ne(fits.id, fitId), lt(fits.createdAt, createdAtOf(fitId))))
+    .orderBy(asc(fits.createdAt))
+    .limit(1);
+  if (!earlier) return null;
+  const [{ n }] = await db
+    .select({ n: count() })
+    .from(fits)
+    .where(and(eq(fits.teamId, teamId), eq(fits.shotId, shotId), lte(fits.createdAt, createdAtOf(earlier.id))));
+  return { id: earlier.id, number: Number(n), state: earlier.state as FitState, createdAt: earlier.createdAt.toISOString() };
 }

@@ -1,5 +1,6 @@
 // The team-wide table of shots with the state and headline numbers of each
-// shot's latest fit, filtered, sorted and paged in SQL.
+// shot's latest fit and, beside it, its latest approved fit (often an older
+// one: the numbers a preset may use), filtered, sorted and paged in SQL.
 import { and, eq, inArray, sql, type SQL } from 'drizzle-orm';
 import type { z } from 'zod';
 import type { ShotOverviewPage, ShotOverviewQuery, ShotOverviewRow } from '../../shared/schemas/fits';
@@ -45,6 +46,10 @@ export async function shotOverview(db: Db, teamId: string, q: Query): Promise<Sh
       select f.id, f.state, f.launch_speed_mps, f.drag_coefficient
       from fits f where f.shot_id = s.id order by f.created_at desc limit 1
     ) latest on true
+    left join lateral (
+      select f.id, f.launch_speed_mps, f.drag_coefficient
+      from fits f where f.shot_id = s.id and f.state = 'approved' order by f.created_at desc limit 1
+    ) approved on true
     left join lateral (select count(*)::int as n from fits f2 where f2.shot_id = s.id) fc on true
     where ${whereSql}`;
 
@@ -54,7 +59,8 @@ export async function shotOverview(db: Db, teamId: string, q: Query): Promise<Sh
       select s.id as "shotId", s.label, s.series_id as "seriesId", ts.name as "seriesName", ts.test_date::text as "testDate",
              l.name as "launcherName", p.name as "projectileName", s.created_at as "createdAt",
              coalesce(latest.state, 'no-fit') as status, latest.id as "fitId",
-             latest.launch_speed_mps as "launchSpeedMps", latest.drag_coefficient as "dragCoefficient", fc.n as "fitCount"
+             latest.launch_speed_mps as "launchSpeedMps", latest.drag_coefficient as "dragCoefficient", fc.n as "fitCount",
+             approved.id as "approvedFitId", approved.launch_speed_mps as "approvedSpeedMps", approved.drag_coefficient as "approvedDragCoefficient"
       ${from}
       order by ${SORTS[q.sort]} ${dir} nulls last, s.id
       limit ${q.pageSize} offset ${offset}`),
@@ -75,6 +81,14 @@ export async function shotOverview(db: Db, teamId: string, q: Query): Promise<Sh
       launchSpeedMps: r.launchSpeedMps === null ? null : Number(r.launchSpeedMps),
       dragCoefficient: r.dragCoefficient === null ? null : Number(r.dragCoefficient),
       fitCount: Number(r.fitCount),
+      approved:
+        r.approvedFitId === null || r.approvedFitId === undefined
+          ? null
+          : {
+              fitId: String(r.approvedFitId),
+              launchSpeedMps: Number(r.approvedSpeedMps),
+              dragCoefficient: r.approvedDragCoefficient === null ? null : Number(r.approvedDragCoefficient),
+            },
     }),
   );
   return { items, total: Number((totals.rows[0] as { total: number }).total), page: q.page, pageSize: q.pageSize };

@@ -33,3 +33,12 @@ describe('report numbers without exponents', () => {
     expect(formatGrouped(0.5, 2)).toBe('0.50');
   });
 });
+
+describe('validation limits', () => {
+  it('states pressure limits in kPa and other limits in their own unit', async () => {
+    const { limitText } = await import('./format');
+    expect(limitText(5e4, 'Pa')).toBe('50\u00a0kPa');
+    expect(limitText(5e7, 'Pa')).toBe('50000\u00a0kPa');
+    expect(limitText(90, '°')).toBe('90 °');
+  });
+});

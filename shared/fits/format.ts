@@ -68,3 +68,8 @@ export function formatGrouped(value: number | null | undefined, digits = 2): str
   const grouped = int.replace(/\B(?=(\d{3})+(?!\d))/g, '\u2009');
   return `${rounded < 0 ? '\u2212' : ''}${grouped}${frac ? `.${frac}` : ''}`;
 }
+
+/** A limit in a validation message ("must be between 50 and 110 kPa"): pressures in kPa like everywhere else. */
+export function limitText(value: number, unit: string): string {
+  return unit === 'Pa' ? formatPressureKPa(value) : `${value} ${unit}`;
+}

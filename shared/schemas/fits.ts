@@ -98,6 +98,8 @@ export interface FitDetail extends FitSummary {
   result: FitShotResult;
   snapshot: FitInputSnapshot;
   audit: FitAuditEntry[];
+  /** An earlier fit of this shot run on identical inputs (same input hash), or null. */
+  sameInputsAs: { id: string; number: number; state: FitState; createdAt: string } | null;
 }
 
 export interface ShotFits {
@@ -127,6 +129,8 @@ export interface ShotOverviewRow {
   launchSpeedMps: number | null;
   dragCoefficient: number | null;
   fitCount: number;
+  /** The shot's latest approved fit, which may be older than the latest fit; null when none is approved. */
+  approved: { fitId: string; launchSpeedMps: number; dragCoefficient: number | null } | null;
 }
 
 export interface ShotOverviewPage {

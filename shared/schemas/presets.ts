@@ -1,5 +1,6 @@
 import { z } from 'zod';
 import { Uuid } from './common';
+import { limitText } from '../fits/format';
 
 // Design presets, their versions, forecasts and keep-out distances. SI units in
 // the API (Pa, m, m/s); air temperature in °C and humidity in %, as instruments read.
@@ -13,7 +14,7 @@ export const LAUNCHER_MODEL_LABELS: Record<PresetLauncherModel, string> = {
 };
 
 const finite = (message = 'must be a number') => z.number({ error: message }).refine(Number.isFinite, 'must be a finite number');
-const between = (min: number, max: number, unit: string) => finite().refine((v) => v >= min && v <= max, `must be between ${min} and ${max} ${unit}`);
+const between = (min: number, max: number, unit: string) => finite().refine((v) => v >= min && v <= max, `must be between ${limitText(min, unit)} and ${limitText(max, unit)}`);
 const Name = z.string().trim().min(1, 'is required').max(120, 'must be at most 120 characters');
 const Note = z.string().trim().max(2000, 'must be at most 2000 characters').default('');
 /** The factor the keep-out range is multiplied by; below 1 would shrink the worst case. */

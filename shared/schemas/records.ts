@@ -1,6 +1,7 @@
 import { z } from 'zod';
 import type { ClipStatus } from './clips';
 import { Uuid } from './common';
+import { limitText } from '../fits/format';
 
 // Test records: series, launchers, projectiles, shots. Every quantity is SI in
 // the API (Pa, m, kg, m³) except air temperature (°C, as thermometers read) and
@@ -21,14 +22,14 @@ function bounded(min: number, max: number, unit: string) {
   return z
     .number({ error: 'must be a number' })
     .refine(Number.isFinite, 'must be a finite number')
-    .refine((v) => v >= min && v <= max, `must be between ${min} and ${max} ${unit}`);
+    .refine((v) => v >= min && v <= max, `must be between ${limitText(min, unit)} and ${limitText(max, unit)}`);
 }
 /** A strictly positive number up to max. */
 function positive(max: number, unit: string) {
   return z
     .number({ error: 'must be a number' })
     .refine(Number.isFinite, 'must be a finite number')
-    .refine((v) => v > 0 && v <= max, `must be more than 0 and at most ${max} ${unit}`);
+    .refine((v) => v > 0 && v <= max, `must be more than 0 and at most ${limitText(max, unit)}`);
 }
 const nullable = <T extends z.ZodType>(schema: T) => schema.nullish().transform((v) => v ?? null);
 

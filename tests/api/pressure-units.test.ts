@@ -56,4 +56,14 @@ describe('pressures in words', () => {
     for (const c of cautions) expect(c).not.toMatch(RAW_PA);
     expect(JSON.stringify(res.body)).not.toMatch(RAW_PA);
   });
+
+  it('a pressure out of bounds is refused with its limits in kPa', async () => {
+    const seriesId = (await engineer.post(url('/series')).send({ name: `Units series ${sfx}`, testDate: '2026-05-09' })).body.id;
+    const res = await engineer.post(url('/shots')).send({ seriesId, label: 'U1', stationPressurePa: 2e5 });
+    expect(res.status).toBe(400);
+    const field = (res.body.errors as { path: string; message: string }[]).find((e) => e.path === 'body.stationPressurePa')!;
+    // US Standard Atmosphere 1976 bounds of the form: 50 to 110 kPa.
+    expect(field.message).toBe('must be between 50\u00a0kPa and 110\u00a0kPa');
+    expect(res.body.detail).not.toMatch(RAW_PA);
+  });
 });

@@ -53,6 +53,16 @@ export function FitPage() {
           {fit.staleness.message}
         </p>
       )}
+      {fit.sameInputsAs && (
+        <p role="note" className="rounded-md border border-signal/50 bg-signal-light/30 px-3 py-2 text-body text-ink" data-testid="same-inputs">
+          This fit ran on inputs identical to{' '}
+          <Link className="font-medium text-signal-dark underline" to={`/t/${teamId}/fits/${fit.sameInputsAs.id}`}>
+            fit {fit.sameInputsAs.number}
+          </Link>{' '}
+          of this shot (run {formatDateTime(fit.sameInputsAs.createdAt)}): the same marks, calibration, projectile and air, so its numbers are the same. Review that fit
+          rather than this one, or change an input before running again.
+        </p>
+      )}
       <SafetyNote>
         <p>Launchers and pressure vessels can injure. Follow local codes, range-safety rules and licensed practice.</p>
         <p className="text-micro text-ink-soft">A measured speed and drag describe this shot only; keep downrange areas clear with the margins your range rules require.</p>

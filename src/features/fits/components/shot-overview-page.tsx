@@ -16,9 +16,11 @@ const COLUMNS: { key: Sort | null; label: string; numeric?: boolean }[] = [
   { key: 'series', label: 'Series' },
   { key: null, label: 'Launcher' },
   { key: null, label: 'Projectile' },
-  { key: 'status', label: 'Status' },
-  { key: 'speed', label: 'Speed (m/s)', numeric: true },
-  { key: 'cd', label: 'Cd', numeric: true },
+  // The latest fit and the latest approved one side by side, each named, since they are often not the same fit.
+  { key: 'status', label: 'Latest fit' },
+  { key: 'speed', label: 'Latest speed (m/s)', numeric: true },
+  { key: 'cd', label: 'Latest Cd', numeric: true },
+  { key: null, label: 'Latest approved fit' },
   // The series' test date: the day the shot was fired. The date it was typed in is "Entered" on the shot page.
   { key: 'created', label: 'Test date' },
 ];
@@ -74,7 +76,7 @@ export function ShotOverviewPage() {
       ) : (
         <div className="overflow-x-auto rounded-card border border-line bg-paper-raised">
           <table className="w-full text-body">
-            <caption className="sr-only">Shots with their latest fit</caption>
+            <caption className="sr-only">Shots with their latest fit and their latest approved fit</caption>
             <thead className="bg-paper-sunk/70 text-micro uppercase tracking-wide text-ink-soft">
               <tr>
                 {COLUMNS.map((c) => (
@@ -150,6 +152,17 @@ function OverviewRow({ teamId, row }: { teamId: string; row: ShotOverviewRow }) 
       </td>
       <td className="px-3 py-2 text-right tabular-nums">{row.launchSpeedMps === null ? '—' : formatNumber(row.launchSpeedMps, { decimals: 2 })}</td>
       <td className="px-3 py-2 text-right tabular-nums">{row.dragCoefficient === null ? '—' : formatNumber(row.dragCoefficient, { decimals: 3 })}</td>
+      <td className="px-3 py-2 tabular-nums" data-testid="approved-fit">
+        {row.approved === null ? (
+          <span className="text-micro text-ink-faint">None approved</span>
+        ) : row.approved.fitId === row.fitId ? (
+          <span className="text-micro text-ink-soft">The latest fit</span>
+        ) : (
+          <Link className="text-signal-dark underline" to={`/t/${teamId}/fits/${row.approved.fitId}`}>
+            {formatNumber(row.approved.launchSpeedMps, { decimals: 2 })}&nbsp;m/s · Cd {row.approved.dragCoefficient === null ? '—' : formatNumber(row.approved.dragCoefficient, { decimals: 3 })}
+          </Link>
+        )}
+      </td>
       <td className="px-3 py-2 tabular-nums text-ink-soft">{formatDate(row.testDate)}</td>
     </tr>
   );
