@@ -12,7 +12,10 @@ import { memberships } from '../../server/db/schema/teams';
 import { users } from '../../server/db/schema/users';
 import type { GeneratedClip } from '../../server/fixtures/clip-generator';
 import { sendDailyDigests } from '../../server/notifications/send-digests';
-import { DEMO_PASSWORD, demoPeopleOf, demoPerson } from '../../server/seed/demo-people';
+import { DEMO_PASSWORD, DEMO_TEAM, demoPeopleOf, demoPerson } from '../../server/seed/demo-people';
+import { DEMO_PRESET_NAMES } from '../../server/seed/demo-presets';
+import { fits } from '../../server/db/schema/fits';
+import { teams } from '../../server/db/schema/teams';
 import type { FitDetail } from '../../shared/schemas/fits';
 import type { Track } from '../../shared/schemas/marking';
 import type { WorkQueueKey, WorkQueues } from '../../shared/schemas/work-queues';
@@ -185,5 +188,21 @@ describe('the hand-off chain', () => {
     expect(entry?.thumbnail?.clipId).toBe(clipId);
     const img = await as.ines.get(`/api/teams/${teamId}/clips/${clipId}/thumbnails/${entry!.thumbnail!.n}/image`);
     expect(img.status).toBe(200);
+  });
+
+  it('the demo team home charts each approved fit of the preset’s launcher and projectile', async () => {
+    const [demo] = await t.deps.db.select({ id: teams.id }).from(teams).where(eq(teams.slug, DEMO_TEAM.slug));
+    const res = await as.ines.get(`/api/teams/${demo.id}/work-queues`);
+    expect(res.status).toBe(200);
+    const trend = (res.body as WorkQueues).trends.find((p) => p.name === DEMO_PRESET_NAMES.lt40)!;
+    expect(trend.points.length).toBeGreaterThan(0);
+    for (const p of trend.points) {
+      const [fit] = await t.deps.db.select({ cd: fits.dragCoefficient, state: fits.state }).from(fits).where(eq(fits.id, p.fitId));
+      expect(fit.state).toBe('approved');
+      expect(p.dragCoefficient).toBe(fit.cd);
+      // No real launcher beats the model of its ideal gas work (the adiabatic/constant-pressure closed forms), so 0 < η ≤ 1.
+      expect(p.launcherEfficiency).toBeGreaterThan(0);
+      expect(p.launcherEfficiency).toBeLessThanOrEqual(1);
+    }
   });
 });
