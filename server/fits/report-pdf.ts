@@ -136,9 +136,11 @@ export function buildFitReportPdf(fit: FitDetail, teamName: string, locale?: str
   const chart = (height: number, draw: (box: { x: number; y: number; width: number; height: number }) => void) => {
     doc.moveDown(0.8);
     keepTogether(doc, height);
-    draw({ x: 50, y: doc.y, width: 495, height });
+    // The chart's labels move pdfkit's cursor; the next block starts under the chart's box.
+    const y = doc.y;
+    draw({ x: 50, y, width: 495, height });
     doc.x = 50;
-    doc.y += height + 4;
+    doc.y = y + height + 4;
   };
   chart(230, (box) => drawChart(doc, box, 'Trajectory (world, m)', 'x (m)', 'y (m)', [
     { label: 'marks', points: marks.map((m) => ({ x: m.xM, y: m.yM })), color: AMBER, style: 'points' },
