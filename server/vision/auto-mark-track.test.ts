@@ -9,6 +9,9 @@ import { accuracyOf, fitFromMarks } from './test-support/accuracy';
 import { extractClipFrames, jpegFrameSource } from './test-support/clip-frames';
 import type { AutoMarkOutcome, FrameSource } from './types';
 
+/** A test that runs autoMarkTrack itself: seconds of work, longer on a busy machine. */
+const TRACKING_TIMEOUT_MS = 120_000;
+
 // Auto-marking on generated field scenes with known truth, through the real
 // path: the generator renders the clip (x264), the server's ffmpeg module
 // extracts JPEG frames at the server's default quality, sharp decodes them to
@@ -126,10 +129,10 @@ describe('auto-marking: how a track ends', () => {
       const t = truth.frames[m.frameNumber];
       expect(Math.hypot(m.uPx - t.uPx, m.vPx + shift - t.vPx)).toBeLessThan(1);
     }
-  });
+  }, TRACKING_TIMEOUT_MS);
 });
 
-describe('auto-marking from a seed click', () => {
+describe('auto-marking from a seed click or a hint', () => {
   it('starts from one click mid-flight and marks the whole flight, back to the launch', async () => {
     const { truth, frames } = runs.get('field-distractors')!;
     const at = truth.frames[60];
@@ -139,12 +142,24 @@ describe('auto-marking from a seed click', () => {
     expect(acc.fractionWithin1Px).toBeGreaterThanOrEqual(0.98);
     expect(acc.maxErrorPx).toBeLessThanOrEqual(3);
     expect(Math.abs(outcome.launchFrame! - truth.launchFrame)).toBeLessThanOrEqual(1);
-  });
+  }, TRACKING_TIMEOUT_MS);
+
+  it('uses the calibration origin as a hint, and a frame range that starts after the launch reports no launch frame', async () => {
+    const { truth, frames } = runs.get('field-distractors')!;
+    const hinted = await autoMarkTrack(frames, { originHint: { uPx: truth.originPx.u, vPx: truth.originPx.v } });
+    expect(accuracyOf(truth, hinted).fractionWithin1Px).toBeGreaterThanOrEqual(0.98);
+    expect(hinted.launchFrame).toBe(truth.launchFrame);
+    const ranged = await autoMarkTrack(frames, { fromFrame: 20, toFrame: 90 });
+    expect(ranged.marks[0].frameNumber).toBe(20);
+    expect(ranged.marks.at(-1)!.frameNumber).toBe(90);
+    expect(ranged.launchFrame).toBeNull();
+    expect(accuracyOf(truth, ranged).maxErrorPx).toBeLessThan(1);
+  }, TRACKING_TIMEOUT_MS);
 
   it('refuses a seed outside the frames', async () => {
     const { frames } = runs.get('field-distractors')!;
     await expect(autoMarkTrack(frames, { seed: { frameNumber: 5, uPx: -3, vPx: 10 } })).rejects.toThrow(/outside/);
-  });
+  }, TRACKING_TIMEOUT_MS);
 });
 
 describe('auto-marking progress and cancel', () => {
@@ -165,7 +180,7 @@ describe('auto-marking progress and cancel', () => {
     expect(live.length).toBe(5);
     expect(progress.length).toBeGreaterThan(0);
     expect(progress.every((p, i) => p >= 0 && p <= 1 && (i === 0 || p >= progress[i - 1]))).toBe(true);
-  });
+  }, TRACKING_TIMEOUT_MS);
 
   it('rejects at once when cancelled before it starts', async () => {
     const { frames } = runs.get('occluded')!;
@@ -175,5 +190,5 @@ describe('auto-marking progress and cancel', () => {
     const counting: FrameSource = { ...frames, read: (n) => (reads++, frames.read(n)) };
     await expect(autoMarkTrack(counting, { signal: controller.signal })).rejects.toMatchObject({ name: 'AbortError' });
     expect(reads).toBe(0);
-  });
+  }, TRACKING_TIMEOUT_MS);
 });
