@@ -1,26 +1,16 @@
 import type { Request, Response } from 'express';
-import { rateLimit } from 'express-rate-limit';
 import { MeUpdateBody, SignInBody } from '../../shared/schemas/auth';
 import type { AppDeps } from '../app-deps';
 import { open, signedIn } from '../auth/access';
 import { loadMe } from '../auth/me';
 import { signIn as checkAndSignIn, updateMe } from '../auth/sign-in';
 import { currentUser, input } from '../http/input';
-import { HttpProblem, sendProblem } from '../http/problem';
 import type { RouteTable } from '../http/route-table';
 import { validate } from '../http/validate';
 
-export function authRoutes(api: RouteTable, { db, config }: AppDeps) {
-  const signInLimit = rateLimit({
-    windowMs: 15 * 60 * 1000,
-    limit: config.signInLimitPerWindow,
-    standardHeaders: 'draft-8',
-    legacyHeaders: false,
-    handler: (req, res) =>
-      sendProblem(res, new HttpProblem(429, 'Too many sign-in attempts', 'Too many sign-in attempts from this address. Wait 15 minutes and try again.'), req.originalUrl),
-  });
-
-  api.post('/api/auth/sign-in', 'Sign in with e-mail and password', open, signInLimit, validate({ body: SignInBody }), signIn);
+export function authRoutes(api: RouteTable, { db }: AppDeps) {
+  // Failed attempts are limited per account and per address by signInGuard (app.ts), which runs before this route.
+  api.post('/api/auth/sign-in', 'Sign in with e-mail and password', open, validate({ body: SignInBody }), signIn);
   api.post('/api/auth/sign-out', { summary: 'Sign out (destroys the session)', status: 204 }, open, signOut);
   api.get('/api/auth/me', 'The signed-in user and their teams', signedIn, me);
   api.patch('/api/auth/me', 'Change my name or e-mail notification setting', signedIn, validate({ body: MeUpdateBody }), changeMe);

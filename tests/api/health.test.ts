@@ -3,11 +3,13 @@
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { FFMPEG_PROBE_INTERVAL_MS, ffmpegProbeCount, primeFfmpegProbe } from '../../server/health/system-status';
-import { createTestApp, type TestApp } from '../support/test-app';
+import { DEMO_PASSWORD, demoPerson } from '../../server/seed/demo-people';
+import { expectProblem } from '../support/problem';
+import { createTestApp, signInAs, type TestApp } from '../support/test-app';
 
 let t: TestApp;
 beforeAll(async () => {
-  t = await createTestApp();
+  t = await createTestApp({ signInLimitPerWindow: 1000 });
   await primeFfmpegProbe(); // as server/index.ts does at start
 });
 afterAll(() => t.close());
@@ -28,5 +30,16 @@ describe('GET /api/health', () => {
   it('tells anonymous callers no versions (those are for admins)', async () => {
     const res = await request(t.app).get('/api/health');
     expect(JSON.stringify(res.body)).not.toMatch(/version|PostgreSQL \d/i);
+  });
+
+  it('gives the detailed check (versions, latency) to a team admin only', async () => {
+    expectProblem(await request(t.app).get('/api/health?detail=1'), 403);
+    const viewer = await signInAs(t.app, demoPerson('viewer').email, DEMO_PASSWORD);
+    expectProblem(await viewer.get('/api/health?detail=1'), 403);
+    const admin = await signInAs(t.app, demoPerson('admin').email, DEMO_PASSWORD);
+    const res = await admin.get('/api/health?detail=1');
+    expect(res.status).toBe(200);
+    expect(res.body.database).toMatchObject({ ok: true, version: expect.stringMatching(/^PostgreSQL \d+/), latencyMs: expect.any(Number) });
+    expect(res.body.ffmpeg).toMatchObject({ ok: true, version: expect.stringMatching(/^ffmpeg version/) });
   });
 });
