@@ -18,6 +18,37 @@ import { launchers, projectiles, shots } from '../db/schema/records';
 import { notFound, unprocessable } from '../http/problem';
 import { calibrationGeometryOf, currentCalibrationRow } from '../marking/calibration-records';
 import { loadFrameTimes } from '../marking/frame-times';
+import { lensCovariance } from '../marking/lens-correction';
+import { lensMarkShifts } from '../../shared/geometry/lens-shifts';
+import type { CalibrationTransform } from '../../shared/geometry/calibration-transform';
+import type { CameraUncertainties } from '../../shared/physics/camera-budget';
+import type { LensCorrection } from '../../shared/schemas/camera';
+
+/**
+ * What the calibration leaves uncertain about the marks' metres: the plane
+ * offset (absent when none was stated, which the fit cautions about), the
+ * roll, and the lens — each mark's world shift per 1σ step of the
+ * coefficients, computed through the whole pixel → world chain.
+ */
+function cameraUncertainties(
+  geometry: CalibrationGeometry, transform: CalibrationTransform, lens: LensCorrection | null, marks: readonly SnapshotMark[],
+): CameraUncertainties {
+  const camera: CameraUncertainties = { rollSigmaRad: transform.rollStdUncertaintyRad };
+  if (transform.planeOffset) camera.planeOffsetRel = transform.planeOffset.relStdUncertainty;
+  if (lens && geometry.lens) {
+    const frame = geometry.lens;
+    camera.lensShifts = lensMarkShifts(
+      marks.map((m) => ({ u: m.uPx, v: m.vPx })),
+      { k1: lens.k1, k2: lens.k2 },
+      lensCovariance(lens),
+      (c) => {
+        const t = buildCalibrationTransform({ ...geometry, lens: { ...frame, k1: c.k1, k2: c.k2 } });
+        return (p) => t.imageToWorld(p);
+      },
+    );
+  }
+  return camera;
+}
 
 export async function buildFitSnapshot(db: Db, teamId: string, trackId: string): Promise<FitInputSnapshot> {
   const [track] = await db.select().from(tracks).where(and(eq(tracks.id, trackId), eq(tracks.teamId, teamId)));
@@ -84,6 +115,7 @@ export async function buildFitSnapshot(db: Db, teamId: string, trackId: string):
       diameterM: diameterSigma,
       airDensityKgM3: air.densitySigmaKgM3,
       scaleRelative: calibration.scaleRelUncertainty,
+      camera: cameraUncertainties(geometry, transform, calibration.lens, snapshotMarks),
     },
     airTemperatureK: air.temperatureK,
     ...(muzzleWorld ? { muzzle: { xM: muzzleWorld.x, yM: muzzleWorld.y } } : {}),

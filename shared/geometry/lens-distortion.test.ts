@@ -145,6 +145,7 @@ describe('coefficientProblem', () => {
     expect(coefficientProblem({ k1: Number.POSITIVE_INFINITY, k2: 0 })).toMatch(/finite/);
     // k1 = −0.5: slope 1 − 1.5 r² is zero at r = 0.816 while r_d is still 0.54: the image folds.
     expect(coefficientProblem({ k1: -0.5, k2: 0 })).toMatch(/fold/);
-    expect(coefficientProblem({ k1: 3, k2: 0 })).toMatch(/fisheye/);
+    // k1 = 8: r + 8 r³ = 1 at r ≈ 0.42, the corner moved by 58 %.
+    expect(coefficientProblem({ k1: 8, k2: 0 })).toMatch(/fisheye/);
   });
 });

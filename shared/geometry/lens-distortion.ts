@@ -115,11 +115,11 @@ export function undistort(model: LensModel, p: PixelPoint): PixelPoint {
 /**
  * Coefficients a person can use on a frame: finite, and the distortion must
  * map radius 0…1 (the whole frame out to its corners) one-to-one, with the
- * corner displaced by no more than maxCornerShift of the half-diagonal (30 %
+ * corner displaced by no more than maxCornerShift of the half-diagonal (50 %
  * by default: stronger than that is a fisheye, which this model does not
  * describe). Returns a plain message, or null when the coefficients are usable.
  */
-export function coefficientProblem(c: RadialCoefficients, maxCornerShift = 0.3): string | null {
+export function coefficientProblem(c: RadialCoefficients, maxCornerShift = 0.5): string | null {
   if (!Number.isFinite(c.k1) || !Number.isFinite(c.k2)) return 'The lens coefficients must be finite numbers.';
   // Walk the ideal radius outwards until its image reaches the frame corner (r_d = 1);
   // the slope must stay positive on the way, or two ideal points share one pixel.

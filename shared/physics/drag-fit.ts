@@ -46,6 +46,8 @@ export interface DragFitOptions {
   startState: readonly [number, number, number, number];
   /** A plausible k for this body (from a handbook Cd); sets the step and scale for k near zero. */
   typicalK_perM: number;
+  /** Steady along-plane wind, m/s, positive downrange (shared/physics/wind.ts); default calm. */
+  windXMps?: number;
 }
 
 export interface DragFit {
@@ -71,7 +73,8 @@ export function fitQuadraticDrag(marks: FitMark[], options: DragFitOptions): Dra
   const sampler = new PositionSampler(times);
   const xs = new Float64Array(n);
   const ys = new Float64Array(n);
-  const model = (p: ArrayLike<number>): FlightModel => ({ dragK_perM: p[DRAG_PARAM.dragK_perM], gravityMps2: g });
+  const windXMps = options.windXMps ?? 0;
+  const model = (p: ArrayLike<number>): FlightModel => ({ dragK_perM: p[DRAG_PARAM.dragK_perM], gravityMps2: g, windXMps });
 
   const observations = new Float64Array(2 * n);
   for (let i = 0; i < n; i++) { observations[i] = marks[i].xM; observations[n + i] = marks[i].yM; }

@@ -64,9 +64,19 @@ describe('fitShot synthetic round trip', () => {
     const stretched = marks.map((m) => ({ ...m, tS: m.tS * 1.2 }));
     const r = fitShot({ marks: stretched, massKg: 0.5, diameterM: 0.05, airDensityKgM3: 1.2 });
     expect(r.dragFree.freeGravityMps2.value).toBeCloseTo(9.80665 / 1.44, 1);
-    expect(r.cautions.some((c) => /wrong frame rate or scale/.test(c))).toBe(true);
+    // The check now fits g inside the drag model (six parameters): same answer here, where drag is nil.
+    expect(r.gravityCheck?.gravityMps2.value).toBeCloseTo(9.80665 / 1.44, 1);
+    expect(r.cautions.some((c) => /check the capture frame rate and the scale/.test(c))).toBe(true);
     const honest = fitShot({ marks, massKg: 0.5, diameterM: 0.05, airDensityKgM3: 1.2 });
-    expect(honest.cautions.some((c) => /wrong frame rate/.test(c))).toBe(false);
+    expect(honest.cautions.some((c) => /frame rate/.test(c))).toBe(false);
+  });
+
+  it('does not raise the time-base caution on a draggy shot, where the drag-free parabola’s free g is far off', () => {
+    const marks = syntheticMarks({ speedMps: 30, angleDeg: 40, dragK_perM: K_SPHERE, frameRateHz: 240, markCount: 120, noiseM: 0.001, seed: 21 });
+    const r = fitShot({ marks, ...BALL });
+    expect(r.dragResolved).toBe(true);
+    expect(Math.abs(r.gravityCheck!.deviationSigmas)).toBeLessThan(3);
+    expect(r.cautions.some((c) => /frame rate/.test(c))).toBe(false);
   });
 
   it('is deterministic and JSON-safe', () => {

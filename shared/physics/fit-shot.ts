@@ -27,6 +27,7 @@ export function fitShot(input: FitShotInput): FitShotResult {
   const cd = budget.dragCoefficient.value;
   const k = models.params.dragK_perM;
   const fit = models.drag.fit;
+  const cautions = fitCautions(input, models, judgement, cd, budget);
 
   return {
     model: headline.model,
@@ -34,7 +35,7 @@ export function fitShot(input: FitShotInput): FitShotResult {
     x0M: headline.x0M,
     y0M: headline.y0M,
     launchSpeedMps: budget.launchSpeedMps,
-    launchAngleDeg: headline.launchAngleDeg,
+    launchAngleDeg: budget.launchAngleDeg,
     dragK_perM: budget.dragK_perM,
     dragCoefficient: budget.dragCoefficient,
     rmsResidualM: headline.rmsResidualM,
@@ -56,9 +57,11 @@ export function fitShot(input: FitShotInput): FitShotResult {
       dragLengthM: k > 0 ? 1 / k : null,
     },
     muzzle: muzzle.muzzle,
-    cautions: [...flow.cautions, ...muzzle.cautions, ...fitCautions(models, judgement, cd)],
+    cautions: [...flow.cautions, ...muzzle.cautions, ...cautions.cautions],
     iterations: fit.iterations,
     converged: fit.converged,
+    exposureShiftS: input.exposureShiftS ?? 0,
+    gravityCheck: cautions.gravityCheck,
   };
 }
 

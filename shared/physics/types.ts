@@ -1,3 +1,5 @@
+import type { CameraUncertainties } from './camera-budget';
+import type { FreeGravityCheck } from './free-g-check';
 // Input and result types of fitShot. Everything here is plain data (numbers,
 // strings, booleans, arrays, nulls) so a result survives JSON unchanged.
 import type { ScaleInput } from '../geometry/scale-uncertainty';
@@ -31,9 +33,18 @@ export interface InputUncertainties {
   scale?: ScaleInput;
   /** Alternative to scale: the relative standard uncertainty of the scale factor. */
   scaleRelative?: number;
+  /** What the camera and its calibration leave uncertain: lens, plane offset, level (shared/physics/camera-budget.ts). */
+  camera?: CameraUncertainties;
 }
 
 export interface FitShotInput {
+  /**
+   * Seconds added to every mark time to reach mid-exposure (shared/physics/exposure-timing.ts:
+   * stamped at the start +shutter/2, middle 0, end −shutter/2). Marks keep their stamped times; the fit shifts them.
+   */
+  exposureShiftS?: number;
+  /** Steady along-plane wind, m/s, positive downrange (the shot's wind through shared/physics/wind.ts). */
+  windXMps?: number;
   marks: FitMark[];
   massKg: number;
   diameterM: number;
@@ -47,13 +58,15 @@ export interface FitShotInput {
   airTemperatureK?: number;
 }
 
-export type UncertaintySource = 'marking scatter' | 'scale' | 'mass' | 'diameter' | 'air density';
+export type UncertaintySource = 'marking scatter' | 'scale' | 'mass' | 'diameter' | 'air density' | 'lens' | 'plane offset' | 'level';
 
 /** Standard uncertainty contributed by one source (first order, sources independent). */
 export interface UncertaintyContribution {
   source: UncertaintySource;
   launchSpeedMps: number;
   dragCoefficient: number;
+  /** Standard uncertainty on the launch angle, degrees (absent in fits stored before it was reported). */
+  launchAngleDeg?: number;
 }
 
 export interface MarkResidual {
@@ -129,4 +142,8 @@ export interface FitShotResult {
   cautions: string[];
   iterations: number;
   converged: boolean;
+  /** Seconds the mark times were moved to reach mid-exposure (0: none stated). */
+  exposureShiftS?: number;
+  /** The drag model fitted with gravity left free: a check of the frame rate and the scale. */
+  gravityCheck?: FreeGravityCheck | null;
 }

@@ -40,11 +40,13 @@ export function checkFitInput(input: FitShotInput): void {
 
 export function fitModels(input: FitShotInput): FittedModels {
   const gravityMps2 = input.gravityMps2 ?? STANDARD_GRAVITY_MPS2;
-  const marks = input.marks.map((m) => ({ ...m }));
+  // Mark times move to mid-exposure, where a blurred body's centre is (exposure-timing.ts).
+  const shift = input.exposureShiftS ?? 0;
+  const marks = input.marks.map((m) => ({ ...m, tS: m.tS + shift }));
   const n = marks.length;
   const free = fitDragFree(marks, gravityMps2);
   const typicalK_perM = dragKFromCd(SPHERE_SUBCRITICAL_CD, input.diameterM, input.massKg, input.airDensityKgM3);
-  const drag = fitQuadraticDrag(marks, { gravityMps2, startState: free.state, typicalK_perM });
+  const drag = fitQuadraticDrag(marks, { gravityMps2, startState: free.state, typicalK_perM, windXMps: input.windXMps ?? 0 });
   const fit = drag.fit;
 
   // Residuals and robust outlier flags (pooled x and y residuals).

@@ -12,7 +12,7 @@ export function flowChecks(input: FitShotInput, models: FittedModels): FlowCheck
   const tempK = input.airTemperatureK ?? SEA_LEVEL_TEMPERATURE_K;
   const { drag } = models;
   const path = simulateTrajectory(
-    { dragK_perM: models.params.dragK_perM, gravityMps2: models.gravityMps2 },
+    { dragK_perM: models.params.dragK_perM, gravityMps2: models.gravityMps2, windXMps: input.windXMps ?? 0 },
     launchFromParams(drag.fit.params),
     { timesS: models.marks.map((m) => m.tS - drag.tRefS) },
   );

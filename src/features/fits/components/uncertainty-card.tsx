@@ -9,6 +9,9 @@ const SOURCE_COLOURS: Record<UncertaintySource, string> = {
   mass: '#7a6fa8',
   diameter: '#3d4a5c',
   'air density': '#8fb7b2',
+  lens: '#b07a3a',
+  'plane offset': '#5c7f9e',
+  level: '#9e5c7f',
 };
 
 
@@ -38,19 +41,29 @@ export function UncertaintyCard({ result, snapshot }: { result: FitShotResult; s
     mass: snapshot.uncertainties.massKg.source,
     diameter: snapshot.uncertainties.diameterM.source,
     'air density': snapshot.uncertainties.airDensityKgM3.source,
+    lens: 'lens coefficients’ uncertainty, through every corrected pixel',
+    'plane offset': 'camera-to-plane distance and reference offset tolerances',
+    level: 'level-line clicks or the stated roll tolerance',
   };
+  const shiftMs = (result.exposureShiftS ?? 0) * 1000;
   return (
     <Card title="Where the uncertainty comes from" subtitle="Standard uncertainties per source (first order, sources independent) and their share of the variance">
       <div className="mb-4 grid gap-3 sm:grid-cols-2">
         <Bar label="Launch speed" parts={b.map((x) => ({ source: x.source, u: x.launchSpeedMps }))} />
         <Bar label="Drag coefficient" parts={b.map((x) => ({ source: x.source, u: x.dragCoefficient }))} />
       </div>
+      {shiftMs !== 0 && (
+        <p className="mb-3 text-body text-ink-soft">
+          Mark times moved by {shiftMs > 0 ? '+' : '−'}{Math.abs(shiftMs).toFixed(3)}&nbsp;ms to mid-exposure (from the clip’s shutter time and frame stamp).
+        </p>
+      )}
       <table className="w-full text-body" aria-label="Uncertainty by source">
         <thead>
           <tr className="border-b border-line text-left text-micro uppercase tracking-wide text-ink-faint">
             <th className="py-1 pr-3 font-semibold">Source</th>
             <th className="py-1 pr-3 text-right font-semibold">Speed (m/s)</th>
             <th className="py-1 pr-3 text-right font-semibold">Cd</th>
+            <th className="py-1 pr-3 text-right font-semibold">Angle (°)</th>
             <th className="py-1 font-semibold">Based on</th>
           </tr>
         </thead>
@@ -67,6 +80,7 @@ export function UncertaintyCard({ result, snapshot }: { result: FitShotResult; s
               <td className="py-1 pr-3 text-right tabular-nums">
                 {formatUncertainty(x.dragCoefficient)} <span className="text-micro text-ink-faint">({cdTotal > 0 ? ((100 * x.dragCoefficient ** 2) / cdTotal).toFixed(0) : 0} %)</span>
               </td>
+              <td className="py-1 pr-3 text-right tabular-nums">{x.launchAngleDeg === undefined ? '—' : formatUncertainty(x.launchAngleDeg)}</td>
               <td className="py-1 text-micro text-ink-faint">{notes[x.source]}</td>
             </tr>
           ))}
