@@ -1,5 +1,6 @@
 import { randomUUID } from 'node:crypto';
 import { existsSync } from 'node:fs';
+import { createRequire } from 'node:module';
 import path from 'node:path';
 import connectPgSimple from 'connect-pg-simple';
 import express, { type RequestHandler } from 'express';
@@ -16,6 +17,7 @@ import { RouteTable } from './http/route-table';
 import { registerAllRoutes } from './routes/registry';
 
 export const CSRF_HEADER = 'x-arcbench-request';
+const SWAGGER_UI_DIR = path.dirname(createRequire(import.meta.url).resolve('swagger-ui-dist/package.json'));
 const SAFE_METHODS = new Set(['GET', 'HEAD', 'OPTIONS']);
 
 /**
@@ -74,6 +76,15 @@ export function createApp(deps: AppDeps) {
   app.get('/api/openapi.json', (_req, res) => {
     res.json(openApi);
   });
+  // A readable API reference rendered from that document by swagger-ui-dist, served from
+  // node_modules (no CDN). Read-only: no "try it out", no outside validator badge.
+  app.get('/api/reference/swagger-initializer.js', (_req, res) => {
+    res.type('text/javascript').send(
+      `window.onload = () => { window.ui = SwaggerUIBundle({ url: '/api/openapi.json', dom_id: '#swagger-ui', deepLinking: true, supportedSubmitMethods: [], validatorUrl: null, presets: [SwaggerUIBundle.presets.apis] }); };`,
+    );
+  });
+  app.get('/api/reference', (req, res, next) => (req.path.endsWith('/') ? next() : res.redirect(301, '/api/reference/')));
+  app.use('/api/reference', express.static(SWAGGER_UI_DIR, { index: 'index.html' }));
   app.use('/api', requireCsrfHeader, express.json({ limit: deps.config.jsonLimitBytes }));
   const signInLimiter = new SignInLimiter({ windowMs: 15 * 60 * 1000, accountLimit: deps.config.signInAccountLimit, addressLimit: deps.config.signInLimitPerWindow });
   app.locals.signInLimiter = signInLimiter;

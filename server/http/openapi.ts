@@ -1,10 +1,42 @@
 import { z } from 'zod';
+import { Problem } from '../../shared/schemas/common';
 import type { RouteSpec } from './route-table';
 
-function jsonSchema(schema: z.ZodType): Record<string, unknown> {
-  // io: 'input' documents what a client sends (before transforms and defaults).
-  const { $schema: _drop, ...rest } = z.toJSONSchema(schema, { io: 'input', unrepresentable: 'any' }) as Record<string, unknown>;
+/**
+ * io 'input' documents what a client sends (before transforms and defaults);
+ * 'output' what the server answers (after them).
+ */
+function jsonSchema(schema: z.ZodType, io: 'input' | 'output' = 'input'): Record<string, unknown> {
+  const { $schema: _drop, ...rest } = z.toJSONSchema(schema, { io, unrepresentable: 'any' }) as Record<string, unknown>;
   return rest;
+}
+
+/** Every problem names the request it answers (also in the server's log lines); some add fields of their own. */
+const ProblemDocument = Problem.extend({ requestId: z.string() }).loose();
+
+/** The request body: JSON from the route's zod schema, or the multipart upload with its file part. */
+function requestBody(spec: RouteSpec) {
+  const type = spec.bodyType ?? 'application/json';
+  const body = spec.schemas.body ? jsonSchema(spec.schemas.body) : { type: 'object', properties: {} };
+  if (type === 'multipart/form-data') {
+    const props = (body.properties ?? {}) as Record<string, unknown>;
+    const required = (body.required ?? []) as string[];
+    // OpenAPI 3.1 (§4.8.14.3): a binary part is a string with contentMediaType, sent as its own part.
+    const schema = { ...body, type: 'object', properties: { file: { type: 'string', contentMediaType: 'application/octet-stream', description: 'The file itself' }, ...props }, required: ['file', ...required] };
+    return { required: true, content: { [type]: { schema, encoding: { file: { contentType: 'video/*, application/octet-stream' } } } } };
+  }
+  const media: Record<string, unknown> = { schema: type === 'application/json' ? body : { type: 'string' } };
+  if (spec.example?.request !== undefined) media.example = spec.example.request;
+  return { required: true, content: { [type]: media } };
+}
+
+function successResponse(spec: RouteSpec) {
+  if ((spec.status ?? 200) === 204) return { description: 'Done; no body' };
+  if (spec.produces) return { description: 'Success', content: { [spec.produces]: { schema: { type: 'string', contentMediaType: spec.produces } } } };
+  if (!spec.response) return { description: 'Success' };
+  const media: Record<string, unknown> = { schema: jsonSchema(spec.response, 'output') };
+  if (spec.example?.response !== undefined) media.example = spec.example.response;
+  return { description: 'Success', content: { 'application/json': media } };
 }
 
 function accessText(spec: RouteSpec): string {
@@ -48,22 +80,14 @@ export function buildOpenApi(specs: RouteSpec[], version: string) {
       'x-access': spec.access.kind === 'team' ? { kind: 'team', roles: spec.access.roles } : { kind: spec.access.kind },
       security: spec.access.kind === 'public' ? [] : [{ session: [] }],
       responses: {
-        [String(spec.status ?? 200)]: {
-          description: 'Success',
-          ...(spec.produces ? { content: { [spec.produces]: {} } } : {}),
-        },
+        [String(spec.status ?? 200)]: successResponse(spec),
         default: {
           description: 'Problem (RFC 7807)',
           content: { 'application/problem+json': { schema: { $ref: '#/components/schemas/Problem' } } },
         },
       },
     };
-    if (spec.schemas.body || spec.bodyType) {
-      op.requestBody = {
-        required: true,
-        content: { [spec.bodyType ?? 'application/json']: { schema: spec.schemas.body ? jsonSchema(spec.schemas.body) : {} } },
-      };
-    }
+    if (spec.schemas.body || spec.bodyType) op.requestBody = requestBody(spec);
     (paths[path] ??= {})[spec.method] = op;
   }
   return {
@@ -78,18 +102,7 @@ export function buildOpenApi(specs: RouteSpec[], version: string) {
     components: {
       securitySchemes: { session: { type: 'apiKey', in: 'cookie', name: 'arcbench.sid' } },
       schemas: {
-        Problem: {
-          type: 'object',
-          required: ['type', 'title', 'status', 'detail'],
-          properties: {
-            type: { type: 'string' },
-            title: { type: 'string' },
-            status: { type: 'integer' },
-            detail: { type: 'string' },
-            instance: { type: 'string' },
-            errors: { type: 'array', items: { type: 'object', properties: { path: { type: 'string' }, message: { type: 'string' } } } },
-          },
-        },
+        Problem: jsonSchema(ProblemDocument, 'output'),
       },
     },
     paths,

@@ -80,6 +80,8 @@ export function sendProblem(res: Parameters<RequestHandler>[1], problem: HttpPro
         detail: problem.detail,
         instance,
         ...problem.extra,
+        // The same id as the X-Request-Id header and the server's log lines, so a report can be traced.
+        requestId: String(res.locals.requestId ?? ''),
       }),
     );
 }

@@ -1,4 +1,5 @@
 import { Router, type RequestHandler } from 'express';
+import type { z } from 'zod';
 import type { Role } from '../../shared/roles';
 import type { Schemas } from './validate';
 
@@ -15,6 +16,10 @@ export interface RouteDoc {
   produces?: string;
   /** Status of the success response (default 200). */
   status?: number;
+  /** The JSON body of the success response, from shared/schemas (the OpenAPI document and the contract test use it). */
+  response?: z.ZodType;
+  /** Worked examples of the request and response bodies, shown in the API reference. */
+  example?: { request?: unknown; response?: unknown };
 }
 
 export interface RouteSpec extends RouteDoc {

@@ -47,3 +47,173 @@ describe('/api/openapi.json', () => {
     expect(doc.paths['/api/mail'].get['x-access']).toEqual({ kind: 'signed-in' });
   });
 });
+
+// Routes whose success body has no schema yet: the list only shrinks. A new route without a
+// response schema fails the test below, and so does a route listed here that has one now.
+const RESPONSE_SCHEMA_PENDING = new Set([
+  'GET /api/health',
+  'GET /api/openapi.json',
+  'POST /api/auth/sign-in',
+  'GET /api/auth/me',
+  'PATCH /api/auth/me',
+  'GET /api/teams',
+  'POST /api/teams',
+  'GET /api/teams/:teamId',
+  'GET /api/teams/:teamId/settings',
+  'PATCH /api/teams/:teamId/settings',
+  'GET /api/teams/:teamId/work-queues',
+  'GET /api/teams/:teamId/members',
+  'PATCH /api/teams/:teamId/members/:userId',
+  'GET /api/teams/:teamId/invitations',
+  'POST /api/teams/:teamId/invitations',
+  'GET /api/invitations/:token',
+  'POST /api/invitations/:token/accept',
+  'GET /api/teams/:teamId/outbox',
+  'GET /api/mail',
+  'GET /api/mail/:messageId',
+  'GET /api/teams/:teamId/audit',
+  'GET /api/teams/:teamId/series',
+  'POST /api/teams/:teamId/series',
+  'GET /api/teams/:teamId/series/:seriesId',
+  'PATCH /api/teams/:teamId/series/:seriesId',
+  'GET /api/teams/:teamId/launchers',
+  'POST /api/teams/:teamId/launchers',
+  'GET /api/teams/:teamId/launchers/:launcherId',
+  'PATCH /api/teams/:teamId/launchers/:launcherId',
+  'GET /api/teams/:teamId/projectiles',
+  'POST /api/teams/:teamId/projectiles',
+  'GET /api/teams/:teamId/projectiles/:projectileId',
+  'PATCH /api/teams/:teamId/projectiles/:projectileId',
+  'GET /api/teams/:teamId/shots/:shotId/clips',
+  'POST /api/teams/:teamId/shots/:shotId/clips',
+  'GET /api/teams/:teamId/clips/:clipId',
+  'PATCH /api/teams/:teamId/clips/:clipId',
+  'POST /api/teams/:teamId/clips/:clipId/extract',
+  'POST /api/teams/:teamId/clips/:clipId/cancel',
+  'GET /api/teams/:teamId/clips/:clipId/frames',
+  'GET /api/teams/:teamId/clips/:clipId/calibrations',
+  'GET /api/teams/:teamId/clips/:clipId/calibrations/current',
+  'POST /api/teams/:teamId/clips/:clipId/calibrations',
+  'GET /api/teams/:teamId/clips/:clipId/tracks',
+  'POST /api/teams/:teamId/clips/:clipId/tracks',
+  'GET /api/teams/:teamId/tracks/:trackId',
+  'PATCH /api/teams/:teamId/tracks/:trackId',
+  'POST /api/teams/:teamId/tracks/:trackId/marking-done',
+  'GET /api/teams/:teamId/tracks/:trackId/marks',
+  'POST /api/teams/:teamId/tracks/:trackId/marks/import',
+  'PUT /api/teams/:teamId/tracks/:trackId/marks/:frameNumber',
+  'DELETE /api/teams/:teamId/tracks/:trackId/marks/:frameNumber',
+  'POST /api/teams/:teamId/clips/:clipId/frames/:frameNumber/snap',
+  'POST /api/teams/:teamId/tracks/:trackId/auto-mark',
+  'GET /api/teams/:teamId/tracks/:trackId/auto-mark-runs',
+  'GET /api/teams/:teamId/auto-mark-runs/:runId',
+  'POST /api/teams/:teamId/auto-mark-runs/:runId/cancel',
+  'GET /api/teams/:teamId/auto-mark-settings',
+  'PUT /api/teams/:teamId/auto-mark-settings',
+  'POST /api/teams/:teamId/tracks/:trackId/fits',
+  'GET /api/teams/:teamId/shots/:shotId/fits',
+  'GET /api/teams/:teamId/shot-overview',
+  'GET /api/teams/:teamId/fits/:fitId',
+  'POST /api/teams/:teamId/fits/:fitId/reproduce',
+  'POST /api/teams/:teamId/fits/:fitId/review',
+  'GET /api/teams/:teamId/presets',
+  'POST /api/teams/:teamId/presets',
+  'GET /api/teams/:teamId/presets/:presetId',
+  'GET /api/teams/:teamId/presets/:presetId/candidates',
+  'POST /api/teams/:teamId/presets/:presetId/pool-preview',
+  'POST /api/teams/:teamId/presets/:presetId/versions',
+  'GET /api/teams/:teamId/presets/:presetId/versions/:version',
+  'GET /api/teams/:teamId/presets/:presetId/versions/:version/diff',
+  'POST /api/teams/:teamId/presets/:presetId/versions/:version/comparisons',
+  'GET /api/teams/:teamId/presets/:presetId/keep-out',
+  'GET /api/teams/:teamId/presets/:presetId/measured-vs-forecast',
+  'POST /api/teams/:teamId/forecast',
+  'GET /api/teams/:teamId/fits/:fitId/preset-comparisons',
+]);
+
+describe('every route has request and response schemas in the document', () => {
+  type Op = { requestBody?: { content: Record<string, { schema?: { properties?: Record<string, unknown>; type?: string } }> }; responses: Record<string, { content?: Record<string, { schema?: object }> }> };
+  const op = (spec: RouteSpec) => (doc.paths[openApiPath(spec.path)] as unknown as Record<string, Op>)[spec.method];
+
+  it('documents the body schema of every route that takes a body', () => {
+    for (const spec of specs.filter((s) => s.schemas.body || s.bodyType)) {
+      const content = op(spec).requestBody?.content ?? {};
+      const [type, media] = Object.entries(content)[0] ?? [];
+      expect(media?.schema, key(spec.method, spec.path)).toBeTruthy();
+      if (type === 'application/json') expect(media!.schema!.type, key(spec.method, spec.path)).toBeDefined();
+    }
+  });
+
+  it('documents the clip upload with its file part (multipart)', () => {
+    const upload = specs.find((s) => s.bodyType === 'multipart/form-data')!;
+    const schema = op(upload).requestBody!.content['multipart/form-data'].schema as { properties: Record<string, { contentMediaType?: string }>; required: string[] };
+    expect(schema.properties.file.contentMediaType).toBe('application/octet-stream');
+    expect(schema.required).toContain('file');
+    expect(schema.properties.captureFps).toBeDefined();
+  });
+
+  it('documents every error as application/problem+json with a request id', () => {
+    for (const spec of specs) expect(op(spec).responses.default.content?.['application/problem+json']?.schema, key(spec.method, spec.path)).toEqual({ $ref: '#/components/schemas/Problem' });
+    const problem = (doc as unknown as { components: { schemas: { Problem: { required: string[] } } } }).components.schemas.Problem;
+    expect(problem.required).toEqual(expect.arrayContaining(['type', 'title', 'status', 'detail', 'requestId']));
+  });
+
+  it('documents the success body of every route (except the pending list, which only shrinks)', () => {
+    const missing: string[] = [];
+    for (const spec of specs) {
+      const status = String(spec.status ?? 200);
+      const success = op(spec).responses[status];
+      expect(success, key(spec.method, spec.path)).toBeDefined();
+      if (status === '204') continue;
+      if (!Object.values(success.content ?? {}).some((m) => m.schema)) missing.push(key(spec.method, spec.path));
+    }
+    expect(missing.filter((k) => !RESPONSE_SCHEMA_PENDING.has(k)), 'routes added without a response schema').toEqual([]);
+    expect([...RESPONSE_SCHEMA_PENDING].filter((k) => !missing.includes(k)), 'documented now: remove them from RESPONSE_SCHEMA_PENDING').toEqual([]);
+  });
+});
+
+describe('the contract check (tests/support/contract.ts) that every API test runs', () => {
+  it('records an answer whose body breaks its documented schema, and passes one that keeps it', async () => {
+    const { z } = await import('zod');
+    const express = (await import('express')).default;
+    const { RouteTable } = await import('../../server/http/route-table');
+    const { buildOpenApi } = await import('../../server/http/openapi');
+    const { open } = await import('../../server/auth/access');
+    const { installContractCheck } = await import('../support/contract');
+    const api = new RouteTable();
+    const Answer = z.object({ speedMps: z.number() });
+    api.get('/api/right', { summary: 'keeps it', response: Answer }, open, (_req, res) => void res.json({ speedMps: 23.4 }));
+    api.get('/api/wrong', { summary: 'breaks it', response: Answer }, open, (_req, res) => void res.json({ speedMps: 'fast' }));
+    const app = express();
+    app.use(api.router);
+    const check = installContractCheck(app, buildOpenApi(api.specs, 'test') as never);
+    await request(app).get('/api/right');
+    expect(check.violations).toEqual([]);
+    await request(app).get('/api/wrong');
+    expect(check.checked).toBe(2);
+    expect(check.violations).toHaveLength(1);
+    expect(check.violations[0]).toMatch(/GET \/api\/wrong → 200: .*speedMps/);
+  });
+
+  it('checked this file’s own answers (the problem of an unknown route among them)', async () => {
+    const res = await request(t.app).get('/api/no-such-route');
+    expect(res.status).toBe(404);
+    expect(res.body.requestId).toBe(res.headers['x-request-id']);
+    expect(t.contract.checked).toBeGreaterThan(0);
+    expect(t.contract.violations).toEqual([]);
+  });
+});
+
+describe('/api/reference', () => {
+  it('serves a readable reference of the document from local files (swagger-ui-dist, no CDN)', async () => {
+    const page = await request(t.app).get('/api/reference/');
+    expect(page.status).toBe(200);
+    expect(page.text).toContain('swagger-ui');
+    expect(page.text).not.toMatch(/https?:\/\//);
+    const init = await request(t.app).get('/api/reference/swagger-initializer.js');
+    expect(init.text).toContain("url: '/api/openapi.json'");
+    const bundle = await request(t.app).get('/api/reference/swagger-ui-bundle.js');
+    expect(bundle.status).toBe(200);
+    expect(bundle.headers['content-type']).toMatch(/javascript/);
+  });
+});

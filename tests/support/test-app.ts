@@ -7,13 +7,19 @@ import { startFakeSmtp } from '../../server/mail/fake-smtp';
 import { createMailer } from '../../server/mail/mailer';
 import { startJobQueue, type JobQueue } from '../../server/jobs/queue';
 import { createStorage } from '../../server/storage/create-storage';
+import { buildOpenApi } from '../../server/http/openapi';
+import type { RouteSpec } from '../../server/http/route-table';
 import { s3Run } from './api-s3-run';
+import { installContractCheck, type ContractCheck } from './contract';
 
 export interface TestApp {
   app: ReturnType<typeof createApp>;
   deps: AppDeps;
   /** Present when the test asked for the job queue. */
   queue?: JobQueue;
+  /** Every API answer of this app checked against its OpenAPI document (tests/support/contract.ts). */
+  contract: ContractCheck;
+  /** Also fails the test file when an answer broke the documented contract. */
   close: () => Promise<void>;
 }
 
@@ -57,15 +63,20 @@ export async function createTestApp(overrides: Partial<Config> = {}, extraDeps: 
     if (options.jobs === 'worker') await queue.startWorker({ db: database.db, storage: deps.storage, config });
   }
   const app = createApp(deps);
+  const contract = installContractCheck(app, buildOpenApi(app.locals.routeSpecs as RouteSpec[], 'test') as never);
   return {
     app,
     deps,
     queue,
+    contract,
     close: async () => {
       await queue?.stop();
       mailer.close();
       await smtp.close();
       await database.close();
+      if (contract.violations.length > 0) {
+        throw new Error(`Answers that break the OpenAPI document (server/http/openapi.ts):\n${[...new Set(contract.violations)].join('\n')}`);
+      }
     },
   };
 }

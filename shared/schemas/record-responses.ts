@@ -1,0 +1,45 @@
+import { z } from 'zod';
+import { CLIP_STATUSES } from './clips';
+import { Uuid } from './common';
+import type { Page, Shot } from './records';
+
+// What the record routes answer, as zod, for the OpenAPI document and the contract
+// test. The TypeScript shapes in records.ts are checked against these below, so the
+// two cannot drift apart (they become z.infer of these once records.ts is free to change).
+
+const IsoTimestamp = z.string().describe('ISO 8601 date and time');
+const nullableNumber = z.number().nullable();
+
+export const ShotResponse = z.object({
+  id: Uuid,
+  seriesId: Uuid,
+  seriesName: z.string(),
+  launcherId: Uuid.nullable(),
+  launcherName: z.string().nullable(),
+  projectileId: Uuid.nullable(),
+  projectileName: z.string().nullable(),
+  label: z.string(),
+  chamberPressurePa: nullableNumber,
+  elevationDeg: nullableNumber,
+  airTempC: nullableNumber,
+  stationPressurePa: nullableNumber,
+  relativeHumidityPct: nullableNumber,
+  tapeRangeM: nullableNumber,
+  notes: z.string().nullable(),
+  createdAt: IsoTimestamp,
+  updatedAt: IsoTimestamp,
+  latestClip: z.object({ id: Uuid, status: z.enum(CLIP_STATUSES), progress: z.number() }).nullable(),
+});
+
+/** One page of a long list. */
+export function pageOf<T extends z.ZodType>(item: T) {
+  return z.object({ items: z.array(item), total: z.number().int().min(0), page: z.number().int().min(1), pageSize: z.number().int().min(1) });
+}
+export const ShotPage = pageOf(ShotResponse);
+
+// Compile-time: the interfaces the client uses equal what the schemas describe.
+type Same<A, B> = [A] extends [B] ? ([B] extends [A] ? true : false) : false;
+const sameShot: Same<z.infer<typeof ShotResponse>, Shot> = true;
+const samePage: Same<z.infer<typeof ShotPage>, Page<Shot>> = true;
+void sameShot;
+void samePage;
