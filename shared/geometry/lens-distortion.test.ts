@@ -1,3 +1,4 @@
+import { createRequire } from 'node:module';
 import { beforeAll, describe, expect, it } from 'vitest';
 import {
   coefficientProblem,
@@ -8,7 +9,6 @@ import {
   undistortRadius,
   type LensModel,
 } from './lens-distortion';
-import { loadOpenCv } from '../../server/vision/opencv';
 
 // Outside reference: OpenCV 4.12 (npm @techstark/opencv-js), whose camera model
 // distorts normalised ideal coordinates by x_d = x (1 + k1 r² + k2 r⁴ + k3 r⁶)
@@ -18,10 +18,23 @@ import { loadOpenCv } from '../../server/vision/opencv';
 // distorted frame, i.e. OpenCV's distort(); projectPoints does the same for
 // arbitrary points. This build has no undistortPoints, so undistort() is
 // checked as the inverse of OpenCV's map.
-// OpenCV comes through the project's one loader (server/vision/opencv.ts).
 // eslint-disable-next-line @typescript-eslint/no-explicit-any
 type Cv = any;
 let cv: Cv;
+
+/**
+ * OpenCV for this test (shared/ may not import the server's loader,
+ * server/vision/opencv.ts, which does the same): the Emscripten module carries a
+ * `then`, so it is awaited through onRuntimeInitialized and the `then` dropped.
+ */
+function loadOpenCv(): Promise<Cv> {
+  const mod = createRequire(import.meta.url)('@techstark/opencv-js') as Cv;
+  return new Promise((resolve) => {
+    const done = () => { delete mod.then; resolve(mod); };
+    if (typeof mod.Mat === 'function' && mod.calledRun) done();
+    else mod.onRuntimeInitialized = done;
+  });
+}
 
 beforeAll(async () => { cv = await loadOpenCv(); }, 60_000);
 
