@@ -4,10 +4,10 @@
 // deleted afterwards. A run that no longer owns the clip (cancelled, deleted,
 // or superseded by a newer job) stops and leaves the current frames alone.
 import { randomBytes, randomUUID } from 'node:crypto';
+import { existsSync } from 'node:fs';
 import { mkdir, readdir, rm } from 'node:fs/promises';
 import path from 'node:path';
 import { and, eq, inArray } from 'drizzle-orm';
-import { frameTimeS } from '../../shared/marking/frame-time';
 import type { Config } from '../config';
 import type { Db } from '../db/client';
 import { clipFrames, clips } from '../db/schema/clips';
@@ -151,8 +151,7 @@ export async function runFrameExtraction(deps: ExtractionDeps, run: ExtractionRu
       return {
         clipId: clip.id,
         frameNumber,
-        // Upload validates a positive capture rate, so the rule always gives a time here.
-        tS: frameTimeS(frameNumber, time?.tS, clip.captureFps) as number,
+        tS: time?.tS ?? frameNumber / clip.captureFps,
         ptsS: time?.ptsS ?? null,
         flag: time?.flag ?? null,
         storageKey: stored.key,
@@ -231,7 +230,20 @@ export async function runFrameExtraction(deps: ExtractionDeps, run: ExtractionRu
   } finally {
     clearInterval(heartbeat);
     deps.stopping?.removeEventListener('abort', onStop);
-    await rm(workDir, { recursive: true, force: true }).catch(() => {});
+    await removeScratch(workDir);
+  }
+}
+
+/**
+ * An aborted ffmpeg may still be writing its last frames while the folder is
+ * removed (the removal then fails on a folder that filled up again): retry a
+ * few times until it is gone.
+ */
+async function removeScratch(dir: string): Promise<void> {
+  for (let attempt = 0; attempt < 20; attempt++) {
+    await rm(dir, { recursive: true, force: true }).catch(() => {});
+    if (!existsSync(dir)) return;
+    await new Promise((r) => setTimeout(r, 250));
   }
 }
 
