@@ -8,6 +8,7 @@ import { existsSync } from 'node:fs';
 import { mkdir, readdir, rm } from 'node:fs/promises';
 import path from 'node:path';
 import { and, eq, inArray } from 'drizzle-orm';
+import { frameTimeS } from '../../shared/marking/frame-time';
 import type { Config } from '../config';
 import type { Db } from '../db/client';
 import { clipFrames, clips } from '../db/schema/clips';
@@ -151,7 +152,8 @@ export async function runFrameExtraction(deps: ExtractionDeps, run: ExtractionRu
       return {
         clipId: clip.id,
         frameNumber,
-        tS: time?.tS ?? frameNumber / clip.captureFps,
+        // Upload validates a positive capture rate, so the rule always gives a time here.
+        tS: frameTimeS(frameNumber, time?.tS, clip.captureFps) as number,
         ptsS: time?.ptsS ?? null,
         flag: time?.flag ?? null,
         storageKey: stored.key,
