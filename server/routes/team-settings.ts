@@ -1,7 +1,7 @@
 import type { Request, Response } from 'express';
 import { CAN } from '../../shared/roles';
 import { TeamParams } from '../../shared/schemas/common';
-import { TeamSettingsBody } from '../../shared/schemas/team-settings';
+import { TeamSettings, TeamSettingsBody } from '../../shared/schemas/team-settings';
 import type { AppDeps } from '../app-deps';
 import { signedIn, teamRole } from '../auth/access';
 import { actorOf, currentTeam, input } from '../http/input';
@@ -12,8 +12,8 @@ import { teamSettings, updateTeamSettings } from '../teams/team-settings';
 /** Team-wide rules: everyone reads them (the fit page explains them), admins change them. */
 export function teamSettingsRoutes(api: RouteTable, { db }: AppDeps) {
   const path = '/api/teams/:teamId/settings';
-  api.get(path, "The team's rules (separation of duties)", signedIn, teamRole(CAN.read), validate({ params: TeamParams }), show);
-  api.patch(path, "Change the team's rules", signedIn, teamRole(CAN.manageMembers), validate({ params: TeamParams, body: TeamSettingsBody }), change);
+  api.get(path, { summary: "The team's rules (separation of duties)", response: TeamSettings }, signedIn, teamRole(CAN.read), validate({ params: TeamParams }), show);
+  api.patch(path, { summary: "Change the team's rules", response: TeamSettings }, signedIn, teamRole(CAN.manageMembers), validate({ params: TeamParams, body: TeamSettingsBody }), change);
 
   async function show(_req: Request, res: Response) {
     res.json(await teamSettings(db, currentTeam(res).id));

@@ -1,6 +1,7 @@
 import type { Request, Response } from 'express';
 import { CAN } from '../../shared/roles';
 import { TeamParams } from '../../shared/schemas/common';
+import { WorkQueues } from '../../shared/schemas/work-queues';
 import type { AppDeps } from '../app-deps';
 import { signedIn, teamRole } from '../auth/access';
 import { currentTeam } from '../http/input';
@@ -10,7 +11,7 @@ import { teamWorkQueues } from '../home/work-queues';
 
 /** The team home: what waits for each role, recent activity and the approved numbers per preset. */
 export function workQueueRoutes(api: RouteTable, { db }: AppDeps) {
-  api.get('/api/teams/:teamId/work-queues', 'Work queues per role, recent activity and preset trends for the team home', signedIn, teamRole(CAN.read), validate({ params: TeamParams }), show);
+  api.get('/api/teams/:teamId/work-queues', { summary: 'Work queues per role, recent activity and preset trends for the team home', response: WorkQueues }, signedIn, teamRole(CAN.read), validate({ params: TeamParams }), show);
 
   async function show(_req: Request, res: Response) {
     res.json(await teamWorkQueues(db, currentTeam(res).id));
