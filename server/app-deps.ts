@@ -1,3 +1,4 @@
+import type { Logger } from './http/logger';
 import type pg from 'pg';
 import type { Config } from './config';
 import type { Db } from './db/client';
@@ -15,4 +16,6 @@ export interface AppDeps {
   storage: Storage;
   /** The job queue, when one is running (background.ts or a test that asks for it). */
   jobs?: Jobs;
+  /** Structured logs (pino); by default one at config.logLevel on standard output. */
+  logger?: Logger;
 }

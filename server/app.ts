@@ -11,6 +11,7 @@ import type { AppDeps } from './app-deps';
 import { sessionGuard } from './auth/session-guard';
 import { signInGuard } from './auth/sign-in-guard';
 import { SignInLimiter } from './auth/sign-in-limits';
+import { createLogger, requestLogger } from './http/logger';
 import { buildOpenApi } from './http/openapi';
 import { HttpProblem, apiNotFound, problemHandler, sendProblem } from './http/problem';
 import { RouteTable } from './http/route-table';
@@ -40,6 +41,7 @@ export function createApp(deps: AppDeps) {
     res.set('X-Request-Id', res.locals.requestId);
     next();
   });
+  app.use(requestLogger(deps.logger ?? createLogger(deps.config.logLevel)));
   app.use(
     helmet({
       contentSecurityPolicy: {

@@ -45,6 +45,8 @@ export interface Config {
   jobStaleSeconds: number;
   /** The built client (vite build output) to serve, if present. */
   clientDist: string;
+  /** pino level of the server's structured logs (LOG_LEVEL: trace … fatal, or silent). */
+  logLevel: string;
   /** Where clips and frames live: local disk (storageDir) unless STORAGE_URL is s3://bucket/prefix. */
   storage: StorageSettings;
   /** A worker's own scratch folder (swept at start, removed on exit); null: a per-process folder in the OS temp dir. */
@@ -166,6 +168,7 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
     jobSchema: env.JOB_SCHEMA || 'pgboss',
     jobStaleSeconds: int(env.JOB_STALE_SECONDS, 30),
     clientDist: path.resolve(env.CLIENT_DIST ?? 'dist'),
+    logLevel: env.LOG_LEVEL ?? 'info',
     storage: storageSettings(env),
     scratchDir: env.SCRATCH_DIR ? path.resolve(env.SCRATCH_DIR) : null,
     workerConcurrency: Math.max(1, int(env.WORKER_CONCURRENCY, 1)),

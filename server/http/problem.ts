@@ -115,7 +115,10 @@ export const problemHandler: ErrorRequestHandler = (err, req, res, _next) => {
   if (problem.status >= 500) {
     const requestId = String(res.locals.requestId ?? '-');
     // The route pattern, not the URL: ids and query strings stay out of the log.
-    console.error(`[api] 500 on ${req.method} ${req.route?.path ?? req.baseUrl ?? ''} request ${requestId}: ${describeErrorForLog(err)}`);
+    // req.log (pino-http) stamps the line with the request id; the fallback covers a request that never reached it.
+    const line = `500 on ${req.method} ${req.route?.path ?? req.baseUrl ?? ''}: ${describeErrorForLog(err)}`;
+    if (req.log) req.log.error({ route: req.route?.path }, line);
+    else console.error(`[api] ${line} request ${requestId}`);
     problem = new HttpProblem(problem.status, problem.title, `${problem.detail} (request ${requestId})`, { ...problem.extra, requestId });
   }
   if (res.headersSent) {

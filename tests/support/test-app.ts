@@ -7,6 +7,7 @@ import { startFakeSmtp } from '../../server/mail/fake-smtp';
 import { createMailer } from '../../server/mail/mailer';
 import { startJobQueue, type JobQueue } from '../../server/jobs/queue';
 import { createStorage } from '../../server/storage/create-storage';
+import { createLogger } from '../../server/http/logger';
 import { buildOpenApi } from '../../server/http/openapi';
 import type { RouteSpec } from '../../server/http/route-table';
 import { s3Run } from './api-s3-run';
@@ -55,7 +56,8 @@ export async function createTestApp(overrides: Partial<Config> = {}, extraDeps: 
   const smtp = await startFakeSmtp(database.db);
   const mailer = createMailer(smtp.url, config.mailFrom);
   const storage = createStorage(config, s3 ? s3.newLocalStorageDir('scratch') : undefined);
-  const deps: AppDeps = { config, db: database.db, pool: database.pool, mailer, storage, ...extraDeps } as AppDeps;
+  // Request logs stay out of the test output unless a test brings a logger of its own (tests/api/logs.test.ts).
+  const deps: AppDeps = { config, db: database.db, pool: database.pool, mailer, storage, logger: createLogger('silent'), ...extraDeps } as AppDeps;
   let queue: JobQueue | undefined;
   if (options.jobs) {
     queue = await startJobQueue(config, database.db, { supervise: options.jobs === 'worker' });
