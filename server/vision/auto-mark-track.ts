@@ -35,7 +35,8 @@ export async function autoMarkTrack(frames: FrameSource, options: AutoMarkOption
   const cv = await loadOpenCv();
   throwIfAborted(options.signal);
 
-  const store = new FrameStore(frames, 48, options.signal);
+  // About 200 MB of decoded frames at most (48 frames of 720p, 8 of 4K): the tracker looks a few frames back.
+  const store = new FrameStore(frames, Math.max(8, Math.min(48, Math.floor(200e6 / (frames.width * frames.height)))), options.signal);
   const samples = spreadFrames(from, to, BACKGROUND_SAMPLES);
   const model = await buildBackground(store, samples);
   const diff = new SceneDiff(cv, model);

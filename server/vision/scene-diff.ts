@@ -131,9 +131,10 @@ export class SceneDiff {
     const cv = this.cv;
     const { raw, smoothed, detection } = this.noise;
     const full = new cv.Mat();
+    const fullFloor = new cv.Mat(this.height, this.width, cv.CV_32FC1, new cv.Scalar(Math.max(2, windowK * smoothed)));
     try {
       this.spread.convertTo(full, cv.CV_32F, (windowK * smoothed) / raw);
-      cv.max(full, new cv.Mat(this.height, this.width, cv.CV_32FC1, new cv.Scalar(Math.max(2, windowK * smoothed))), this.thrFull);
+      cv.max(full, fullFloor, this.thrFull);
       const small = new cv.Mat();
       const floor = new cv.Mat(this.zerosSmall.rows, this.zerosSmall.cols, cv.CV_32FC1, new cv.Scalar(Math.max(2.5, detectK * detection)));
       if (this.detectScale > 1) cv.resize(this.spread, small, new cv.Size(this.zerosSmall.cols, this.zerosSmall.rows), 0, 0, cv.INTER_AREA);
@@ -144,6 +145,7 @@ export class SceneDiff {
       floor.delete();
     } finally {
       full.delete();
+      fullFloor.delete();
     }
   }
 
