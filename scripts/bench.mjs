@@ -17,7 +17,10 @@ async function main() {
   try {
     log('Building the client for the browser checks');
     await runStatus(bin(root, 'vite'), ['build', '--logLevel', 'warn', '--outDir', env.CLIENT_DIST, '--emptyOutDir'], { cwd: root, env });
-    process.exitCode = await runStatus(bin(root, 'tsx'), ['scripts/bench.ts', ...process.argv.slice(2)], { cwd: root, env });
+    // Bytes per route chunk and the sign-in page's first load against its budget (issue 14).
+    const bundleOk = (await runStatus(process.execPath, ['scripts/bench-bundle.mjs', env.CLIENT_DIST], { cwd: root, env })) === 0;
+    const benchCode = await runStatus(bin(root, 'tsx'), ['scripts/bench.ts', ...process.argv.slice(2)], { cwd: root, env });
+    process.exitCode = bundleOk ? benchCode : 1;
   } finally {
     await cleanup();
   }
