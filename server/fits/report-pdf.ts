@@ -105,7 +105,7 @@ export function buildFitReportPdf(fit: FitDetail, teamName: string, locale?: str
     ],
   });
   doc.moveDown(0.3).font('Helvetica-Bold').fontSize(9).text(`Drag verdict: `, { continued: true }).font('Helvetica').text(r.dragVerdict);
-  doc.text(`Headline numbers come from the ${r.model === 'quadratic-drag' ? 'quadratic-drag' : 'drag-free'} model. Drag-free fit: ${formatValue(r.dragFree.launchSpeedMps)} m/s at ${formatValue(r.dragFree.launchAngleDeg)}°; free-fitted gravity ${formatValue(r.dragFree.freeGravityMps2)} m/s².`);
+  doc.text(`Headline numbers come from the ${r.model === 'quadratic-drag' ? 'quadratic-drag' : 'drag-free'} model. Drag-free fit: ${formatValue(r.dragFree.launchSpeedMps)} m/s at ${formatValue(r.dragFree.launchAngleDeg)}°; ${r.gravityCheck ? `gravity fitted freely in the drag model ${formatValue(r.gravityCheck.gravityMps2)} m/s²` : `free-fitted gravity ${formatValue(r.dragFree.freeGravityMps2)} m/s²`}.`);
 
   heading(doc, 'Where the uncertainty comes from (standard uncertainties)');
   drawTable(doc, {

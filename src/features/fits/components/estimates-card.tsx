@@ -65,7 +65,7 @@ export function EstimatesCard({ result, snapshot }: { result: FitShotResult; sna
         {result.dragVerdict}.
       </p>
       <p className="text-micro text-ink-faint">
-        RMS residual {formatNumber(result.rmsResidualM * 1000, { decimals: 2 })} mm · drag-free fit {formatEstimate(result.dragFree.launchSpeedMps)} m/s at {formatEstimate(result.dragFree.launchAngleDeg)}° · gravity fitted freely {formatEstimate(result.dragFree.freeGravityMps2)} m/s²
+        RMS residual {formatNumber(result.rmsResidualM * 1000, { decimals: 2 })} mm · drag-free fit {formatEstimate(result.dragFree.launchSpeedMps)} m/s at {formatEstimate(result.dragFree.launchAngleDeg)}° · {result.gravityCheck ? <>gravity fitted freely in the drag model {formatEstimate(result.gravityCheck.gravityMps2)} m/s²</> : <>gravity fitted freely {formatEstimate(result.dragFree.freeGravityMps2)} m/s²</>}
       </p>
     </Card>
   );
