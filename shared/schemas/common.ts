@@ -2,6 +2,12 @@ import { z } from 'zod';
 
 export const Uuid = z.uuid({ error: 'must be an id (UUID)' });
 
+/** The largest value a PostgreSQL integer (int4) column holds; whole numbers the client sends are bounded by it. */
+export const INT4_MAX = 2_147_483_647;
+
+/** A revision or version the client sends back: a whole number that fits an int4 column. */
+export const WholeNumber = z.number().int('must be a whole number').min(0, 'must be 0 or more').max(INT4_MAX, `must be at most ${INT4_MAX}`);
+
 export const TeamParams = z.object({ teamId: Uuid });
 
 export const Email = z
@@ -30,7 +36,7 @@ export type Problem = z.infer<typeof Problem>;
 
 /** ?page&pageSize for long lists; query strings arrive as text, hence coerce. */
 export const PageQuery = z.object({
-  page: z.coerce.number().int().min(1, 'must be 1 or more').default(1),
+  page: z.coerce.number().int().min(1, 'must be 1 or more').max(1_000_000, 'must be at most 1000000').default(1),
   pageSize: z.coerce.number().int().min(1, 'must be 1 or more').max(100, 'must be at most 100').default(20),
 });
 export type PageQuery = z.infer<typeof PageQuery>;

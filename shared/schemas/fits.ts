@@ -1,7 +1,7 @@
 import { z } from 'zod';
 import type { FitInputSnapshot } from '../fits/snapshot';
 import type { FitShotResult } from '../physics/types';
-import { Uuid } from './common';
+import { INT4_MAX, Uuid } from './common';
 
 // Fits: running a track's fit, reading it, signing it off, and the team's shot overview.
 
@@ -40,7 +40,7 @@ export const ShotOverviewQuery = z.object({
   projectileId: Uuid.optional(),
   sort: z.enum(['created', 'label', 'series', 'speed', 'cd', 'status']).default('created'),
   dir: z.enum(['asc', 'desc']).default('desc'),
-  page: z.coerce.number().int().min(1).default(1),
+  page: z.coerce.number().int().min(1).max(INT4_MAX).default(1),
   pageSize: z.coerce.number().int().min(1).max(100).default(25),
 });
 export type ShotOverviewQuery = z.input<typeof ShotOverviewQuery>;

@@ -1,9 +1,9 @@
 import { z } from 'zod';
 import { CLICK_SIGMA_PX, SNAP_WINDOW_PX } from '../defaults';
-import { PixelPoint } from '../geometry/points';
+import { PixelPoint, pixelCoord } from '../geometry/points';
 import { LensCorrection, LensInput, LevelUncertaintyInput, PlaneOffsetInput } from './camera';
 import { MarkSource } from './auto-mark';
-import { Uuid } from './common';
+import { Uuid, WholeNumber } from './common';
 
 // Contract of the calibrate-and-mark API (docs/marking-api.md explains the
 // routes). Pixel coordinates: u to the right, v down, origin at the top-left
@@ -24,9 +24,10 @@ export const ClipFrameParams = z.object({ teamId: Uuid, clipId: Uuid, frameNumbe
 export const ScaleReference = z.object({
   p1: PixelPoint,
   p2: PixelPoint,
-  lengthM: finite('lengthM').refine((v) => v > 0, 'lengthM must be positive'),
+  // Physical range: a reference bar or marked distance of up to a kilometre.
+  lengthM: finite('lengthM').refine((v) => v > 0 && v <= 1000, 'lengthM must be more than 0 and at most 1000 m'),
   /** Stated tolerance ±a of the length, treated as a uniform distribution (GUM §4.3.7). */
-  lengthTolM: finite('lengthTolM').refine((v) => v >= 0, 'lengthTolM must be 0 or more').default(0),
+  lengthTolM: finite('lengthTolM').refine((v) => v >= 0 && v <= 100, 'lengthTolM must be between 0 and 100 m').default(0),
   /** Standard uncertainty of placing each end point, pixels. */
   endpointSigmaPx: finite('endpointSigmaPx').refine((v) => v >= 0 && v <= 50, 'endpointSigmaPx must be between 0 and 50').default(CLICK_SIGMA_PX),
 });
@@ -50,8 +51,8 @@ export type LevelInput = z.infer<typeof LevelInput>;
  */
 export const PlaneCorrectionInput = z.object({
   corners: z.tuple([PixelPoint, PixelPoint, PixelPoint, PixelPoint]),
-  widthM: finite('widthM').refine((v) => v > 0, 'widthM must be positive'),
-  heightM: finite('heightM').refine((v) => v > 0, 'heightM must be positive'),
+  widthM: finite('widthM').refine((v) => v > 0 && v <= 1000, 'widthM must be more than 0 and at most 1000 m'),
+  heightM: finite('heightM').refine((v) => v > 0 && v <= 1000, 'heightM must be more than 0 and at most 1000 m'),
 });
 export type PlaneCorrectionInput = z.infer<typeof PlaneCorrectionInput>;
 
@@ -229,12 +230,12 @@ export type MarksResponse = z.infer<typeof MarksResponse>;
  */
 export const MarkUpsertBody = z
   .object({
-    uPx: finite('uPx'),
-    vPx: finite('vPx'),
-    placedUPx: finite('placedUPx').optional(),
-    placedVPx: finite('placedVPx').optional(),
+    uPx: pixelCoord('uPx'),
+    vPx: pixelCoord('vPx'),
+    placedUPx: pixelCoord('placedUPx').optional(),
+    placedVPx: pixelCoord('placedVPx').optional(),
     snapped: z.boolean().default(false),
-    expectedRevision: z.number().int().nullable().optional(),
+    expectedRevision: WholeNumber.nullable().optional(),
   })
   .refine((b) => (b.placedUPx === undefined) === (b.placedVPx === undefined), {
     message: 'send both placedUPx and placedVPx, or neither',
@@ -245,7 +246,7 @@ export type MarkUpsertBody = z.input<typeof MarkUpsertBody>;
 export const MarkWriteResult = z.object({ mark: Mark, trackRevision: z.number().int(), created: z.boolean() });
 export type MarkWriteResult = z.infer<typeof MarkWriteResult>;
 
-export const MarkDeleteQuery = z.object({ expectedRevision: z.coerce.number().int('must be a whole number') });
+export const MarkDeleteQuery = z.object({ expectedRevision: z.coerce.number().pipe(WholeNumber) });
 export const MarkDeleteResult = z.object({ trackRevision: z.number().int() });
 export type MarkDeleteResult = z.infer<typeof MarkDeleteResult>;
 
@@ -292,8 +293,8 @@ export const MarksExportQuery = z.object({ kind: MarksCsvKind.default('pixel') }
 // ----------------------------------------------------------------------- snap
 
 export const SnapBody = z.object({
-  uPx: finite('uPx'),
-  vPx: finite('vPx'),
+  uPx: pixelCoord('uPx'),
+  vPx: pixelCoord('vPx'),
   windowPx: z.number().int().min(5).max(101).default(SNAP_WINDOW_PX),
   /** true: a dark projectile on a lighter background (the usual case). */
   dark: z.boolean().default(true),

@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { Uuid } from './common';
+import { INT4_MAX, Uuid } from './common';
 import { limitText } from '../fits/format';
 
 // Design presets, their versions, forecasts and keep-out distances. SI units in
@@ -22,7 +22,7 @@ export const SafetyFactor = between(1, 10, '(a factor)');
 export const DEFAULT_SAFETY_FACTOR = 1.5;
 
 export const PresetParams = z.object({ teamId: Uuid, presetId: Uuid });
-export const PresetVersionParams = z.object({ teamId: Uuid, presetId: Uuid, version: z.coerce.number().int().min(1, 'must be 1 or more') });
+export const PresetVersionParams = z.object({ teamId: Uuid, presetId: Uuid, version: z.coerce.number().int().min(1, 'must be 1 or more').max(INT4_MAX) });
 export const FitComparisonsParams = z.object({ teamId: Uuid, fitId: Uuid });
 
 export const PresetCreateBody = z
@@ -61,7 +61,7 @@ export const RecordComparisonsBody = z.object({ fitIds: FitIdList });
 /** Shot conditions for a forecast. */
 export const ForecastBody = z.object({
   presetId: Uuid,
-  version: z.number().int().min(1).optional(),
+  version: z.number().int().min(1).max(INT4_MAX).optional(),
   pressurePa: between(1e3, 1e8, 'Pa'),
   elevationDeg: between(1, 89, '°'),
   airTempC: between(-40, 60, '°C').default(15),
@@ -73,7 +73,7 @@ export const ForecastBody = z.object({
 });
 export type ForecastBody = z.input<typeof ForecastBody>;
 
-export const PresetVersionQuery = z.object({ version: z.coerce.number().int().min(1).optional() });
+export const PresetVersionQuery = z.object({ version: z.coerce.number().int().min(1).max(INT4_MAX).optional() });
 
 /** Keep-out conditions: thin air carries further, so the default is a hot, high day. */
 export const KeepOutQuery = PresetVersionQuery.extend({
