@@ -14,7 +14,7 @@ import { FrameStore, throwIfAborted } from './frame-store';
 import { predictAt } from './motion-model';
 import { loadOpenCv } from './opencv';
 import { SceneDiff, type Blob } from './scene-diff';
-import { asPoint, follow, gainFor, measureAt, type TrackContext, type TrackedMark } from './track-follower';
+import { follow, gainFor, measureAt, type TrackContext, type TrackedMark } from './track-follower';
 import type { AutoMark, AutoMarkOptions, AutoMarkOutcome, AutoMarkSeed, FrameSource } from './types';
 
 export type { AutoMark, AutoMarkOptions, AutoMarkOutcome, AutoMarkSeed, FrameSource, GrayFrame } from './types';
