@@ -58,8 +58,9 @@ describe('pressures in words', () => {
   });
 
   it('a pressure out of bounds is refused with its limits in kPa', async () => {
-    const seriesId = (await engineer.post(url('/series')).send({ name: `Units series ${sfx}`, testDate: '2026-05-09' })).body.id;
-    const res = await engineer.post(url('/shots')).send({ seriesId, label: 'U1', stationPressurePa: 2e5 });
+    const analyst = await signInAs(t.app, demoPerson('analyst').email, DEMO_PASSWORD);
+    const seriesId = (await analyst.post(url('/series')).send({ name: `Units series ${sfx}`, testDate: '2026-05-09' })).body.id;
+    const res = await analyst.post(url('/shots')).send({ seriesId, label: 'U1', stationPressurePa: 2e5 });
     expect(res.status).toBe(400);
     const field = (res.body.errors as { path: string; message: string }[]).find((e) => e.path === 'body.stationPressurePa')!;
     // US Standard Atmosphere 1976 bounds of the form: 50 to 110 kPa.
