@@ -7,7 +7,8 @@ import type { FitMark } from '@shared/physics/types';
 export interface PreviewRequest {
   id: number;
   marks: FitMark[];
-  nextTS: number;
+  /** null once the last mark sits on the clip's last frame. */
+  nextTS: number | null;
 }
 
 self.onmessage = (event: MessageEvent<PreviewRequest>) => {

@@ -19,8 +19,8 @@ describe('flight preview', () => {
     const marks = Array.from({ length: 8 }, (_, i) => at(i * dt));
     const p = flightPreview(marks, 8 * dt)!;
     const expected = at(8 * dt);
-    expect(p.dragFree.next.xM).toBeCloseTo(expected.xM, 9);
-    expect(p.dragFree.next.yM).toBeCloseTo(expected.yM, 9);
+    expect(p.dragFree.next!.xM).toBeCloseTo(expected.xM, 9);
+    expect(p.dragFree.next!.yM).toBeCloseTo(expected.yM, 9);
     // Drag-free data: the drag fit should find no drag to speak of.
     expect(Math.abs(p.drag!.dragK_perM)).toBeLessThan(1e-3);
   });
@@ -49,7 +49,7 @@ describe('flight preview', () => {
     const truthNext = run.points[40];
     const p = flightPreview(marks, truthNext.tS)!;
     expect(p.drag!.dragK_perM).toBeCloseTo(k, 4);
-    expect(Math.hypot(p.drag!.next.xM - truthNext.xM, p.drag!.next.yM - truthNext.yM)).toBeLessThan(1e-5);
-    expect(Math.hypot(p.dragFree.next.xM - truthNext.xM, p.dragFree.next.yM - truthNext.yM)).toBeGreaterThan(1e-3);
+    expect(Math.hypot(p.drag!.next!.xM - truthNext.xM, p.drag!.next!.yM - truthNext.yM)).toBeLessThan(1e-5);
+    expect(Math.hypot(p.dragFree.next!.xM - truthNext.xM, p.dragFree.next!.yM - truthNext.yM)).toBeGreaterThan(1e-3);
   });
 });
