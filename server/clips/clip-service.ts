@@ -13,6 +13,7 @@ import { frameTimestamps, probe } from '../media/ffmpeg';
 import { analyseTimeBase } from '../media/time-base';
 import { clipPrefix, isStorageUnavailable } from '../storage/storage';
 import { acceptUpload, type UploadRequest } from './accept-upload';
+import { checkDecodedPixels, type ExtractionLimits } from './extraction-limits';
 import { loadClipView, loadClipViews } from './clip-view';
 import { frameStoreUnavailable, type ReceivedFile } from './intake';
 
@@ -23,7 +24,7 @@ export interface StoredImage {
   open: () => Promise<Readable>;
 }
 
-type ClipDeps = Pick<AppDeps, 'db' | 'storage' | 'jobs'>;
+type ClipDeps = Pick<AppDeps, 'db' | 'storage' | 'jobs'> & { config?: ExtractionLimits };
 
 /** Rewrites the time of each listed frame in one statement (an update joined to two unnested arrays). */
 async function rewriteFrameTimes(tx: Tx, clipId: string, frames: { frameNumber: number; tS: number }[]) {
@@ -37,7 +38,9 @@ async function rewriteFrameTimes(tx: Tx, clipId: string, frames: { frameNumber: 
  * Clips of a shot: upload, time base, frame extraction (queued as a job),
  * re-timing, cancelling and deleting with their files, and the stored images.
  */
-export function clipService({ db, storage, jobs }: ClipDeps) {
+export function clipService({ db, storage, jobs, config }: ClipDeps) {
+  // The pixel cap and team quota (config); refused before anything is decoded.
+  const limits: ExtractionLimits | undefined = config && { maxDecodedPixels: config.maxDecodedPixels, teamStorageQuotaBytes: config.teamStorageQuotaBytes };
   async function findClip(teamId: string, clipId: string) {
     const [row] = await db.select().from(clips).where(and(eq(clips.id, clipId), eq(clips.teamId, teamId)));
     if (!row) throw notFound('No such clip in this team.');
@@ -81,7 +84,7 @@ export function clipService({ db, storage, jobs }: ClipDeps) {
 
     /** Records an uploaded clip and queues its extraction. */
     async upload(file: ReceivedFile, r: UploadRequest): Promise<ClipView> {
-      const clipId = await acceptUpload(db, storage, file, r);
+      const clipId = await acceptUpload(db, storage, file, { ...r, limits: r.limits ?? limits });
       await enqueue(clipId);
       return view(r.teamId, clipId);
     },
@@ -102,6 +105,7 @@ export function clipService({ db, storage, jobs }: ClipDeps) {
       const rateChanged = captureFps !== row.captureFps;
       if (!rangeChanged && !rateChanged) return view(actor.teamId, clipId);
 
+      if (rangeChanged && limits) checkDecodedPixels({ frames: outFrame - inFrame + 1, width: row.width, height: row.height, maxDecodedPixels: limits.maxDecodedPixels });
       if (rangeChanged || row.status !== 'ready') {
         // New frames (or an extraction still to finish): let the job compute everything afresh.
         await db.update(clips).set({ inFrame, outFrame, captureFps, updatedAt: new Date() }).where(eq(clips.id, row.id));
