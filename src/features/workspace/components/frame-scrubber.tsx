@@ -1,3 +1,4 @@
+import { frameTimeS } from '@shared/marking/frame-time';
 import { formatNumber } from '@/lib/format';
 import type { Editor } from '../editor/editor-store';
 import { useEditor } from '../hooks/use-editor';
@@ -7,7 +8,7 @@ export function FrameScrubber({ editor, captureFps }: { editor: Editor; captureF
   const frames = useEditor(editor, (s) => s.frames);
   const frameNumber = useEditor(editor, (s) => s.frameNumber);
   const index = Math.max(0, frames.findIndex((f) => f.frameNumber === frameNumber));
-  const tS = frames[index]?.tS ?? frameNumber / captureFps;
+  const tS = frameTimeS(frameNumber, frames[index]?.tS, captureFps) ?? 0;
   const last = frames.length - 1;
   const step = (by: number) => () => editor.step(by);
   const btn = 'h-8 min-w-8 rounded-md border border-line bg-paper-raised px-2 text-body text-ink-soft hover:bg-paper-sunk disabled:opacity-40';
