@@ -175,7 +175,7 @@ describe('shots', () => {
       'body.relativeHumidityPct',
       'body.stationPressurePa',
     ]);
-    expect(res.body.errors.find((e: { path: string }) => e.path === 'body.elevationDeg').message).toMatch(/-10 and 90/);
+    expect(res.body.errors.find((e: { path: string }) => e.path === 'body.elevationDeg').message).toMatch(/between -10 ° and 90 °/);
     const wrongType = await analyst.post(url('/shots')).send({ seriesId, label: 'B2', elevationDeg: '30' });
     expectProblem(wrongType, 400);
     // Nothing was stored by the rejected requests.
