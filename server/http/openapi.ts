@@ -32,7 +32,11 @@ function requestBody(spec: RouteSpec) {
 
 function successResponse(spec: RouteSpec) {
   if ((spec.status ?? 200) === 204) return { description: 'Done; no body' };
-  if (spec.produces) return { description: 'Success', content: { [spec.produces]: { schema: { type: 'string', contentMediaType: spec.produces } } } };
+  if (spec.produces) {
+    // A JSON download is still a JSON value on the wire; only text and binary downloads are strings.
+    const schema = spec.produces === 'application/json' ? { type: 'object' } : { type: 'string', contentMediaType: spec.produces };
+    return { description: 'Success', content: { [spec.produces]: { schema } } };
+  }
   if (!spec.response) return { description: 'Success' };
   const media: Record<string, unknown> = { schema: jsonSchema(spec.response, 'output') };
   if (spec.example?.response !== undefined) media.example = spec.example.response;
