@@ -17,6 +17,7 @@ export default defineConfig({
         resolve: { alias },
         test: {
           name: 'unit',
+          sequence: { groupOrder: 0 },
           include: ['tests/unit/**/*.test.ts', 'tests/architecture/**/*.test.ts', 'shared/**/*.test.ts', 'src/**/*.test.ts', 'server/**/*.test.ts'],
           environment: 'node',
         },
@@ -25,6 +26,8 @@ export default defineConfig({
         resolve: { alias },
         test: {
           name: 'api',
+          // api and api-s3 share one database and the demo team: they run one after the other.
+          sequence: { groupOrder: 0 },
           include: ['tests/api/**/*.test.ts'],
           // Storage tests need the S3 fake and its workers: they belong to api-s3.
           exclude: [...configDefaults.exclude, 'tests/api/storage-*.test.ts'],
@@ -41,6 +44,7 @@ export default defineConfig({
           // worker off and two `npm run worker` processes (tests/support/api-s3-global-setup.ts).
           // The worker-kill test of local disk has its S3 twin in storage-s3-workers.test.ts.
           name: 'api-s3',
+          sequence: { groupOrder: 1 },
           include: ['tests/api/clips-*.test.ts', 'tests/api/marking-*.test.ts', 'tests/api/fit-*.test.ts', 'tests/api/storage-*.test.ts'],
           exclude: [...configDefaults.exclude, 'tests/api/clips-worker-resilience.test.ts'],
           environment: 'node',
@@ -53,6 +57,7 @@ export default defineConfig({
         resolve: { alias },
         test: {
           name: 'e2e',
+          sequence: { groupOrder: 1 },
           include: ['tests/e2e/**/*.e2e.ts'],
           environment: 'node',
           globalSetup: ['tests/support/e2e-global-setup.ts'],

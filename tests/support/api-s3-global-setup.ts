@@ -3,7 +3,7 @@
 // process), the server's in-process worker off, and two `npm run worker`
 // processes, each with its own scratch folder and nothing but the database and
 // the S3 settings. At the end: nothing was written to any local storage folder.
-import { spawn, type ChildProcess } from 'node:child_process';
+import { execFileSync, spawn, type ChildProcess } from 'node:child_process';
 import { createWriteStream, existsSync, mkdirSync, readFileSync, readdirSync, type Dirent } from 'node:fs';
 import path from 'node:path';
 import type { TestProject } from 'vitest/node';
@@ -109,11 +109,22 @@ export default async function setup(project: TestProject) {
   const own = process.env.S3_FAKE_ENDPOINT ? null : await startS3Fake(path.join(runDir, 's3'), [S3_BUCKET]);
   const endpoint = process.env.S3_FAKE_ENDPOINT ?? own!.endpoint;
   const prefix = 'api-s3/';
-  const storageEnv = s3FakeEnv(endpoint, S3_BUCKET, prefix);
+  // A database of its own, freshly migrated and seeded: the local-disk run (project api) uploads
+  // the same generated clips, so on one database its uploads would be duplicates here.
+  const dbUrl = new URL(process.env.DATABASE_URL);
+  dbUrl.pathname = `${dbUrl.pathname}_s3`;
+  const root = path.resolve(import.meta.dirname, '../..');
+  execFileSync(path.join(root, 'node_modules/.bin/tsx'), ['server/cli/seed.ts'], {
+    cwd: root,
+    env: { ...process.env, DATABASE_URL: dbUrl.toString() },
+    stdio: 'inherit',
+  });
+  // DATABASE_URL rides with the storage settings, so the run's apps and workers all use that database.
+  const storageEnv = { ...s3FakeEnv(endpoint, S3_BUCKET, prefix), DATABASE_URL: dbUrl.toString() };
 
   // The demo seed wrote its clips to local disk before the fake existed: give the store the same objects.
   const seedDir = process.env.STORAGE_DIR!;
-  const store = createStorage(loadConfig({ DATABASE_URL: process.env.DATABASE_URL, ...storageEnv }), path.join(runDir, 'copy-scratch'));
+  const store = createStorage(loadConfig({ ...storageEnv }), path.join(runDir, 'copy-scratch'));
   await copyObjects(localDiskStorage(seedDir), store);
 
   const localStorageRoot = path.join(runDir, 'local-storage');
@@ -128,7 +139,6 @@ export default async function setup(project: TestProject) {
         {
           PATH: process.env.PATH,
           HOME: process.env.HOME,
-          DATABASE_URL: process.env.DATABASE_URL,
           ...storageEnv,
           STORAGE_DIR: workerStorageDirs[i],
           SCRATCH_DIR: scratch,
