@@ -12,7 +12,8 @@ export interface Scratch {
   cleanup: () => Promise<void>;
 }
 
-function alive(pid: number): boolean {
+/** Whether a process with this id still runs (EPERM: it runs, as another user). */
+export function processAlive(pid: number): boolean {
   try {
     process.kill(pid, 0);
     return true;
@@ -35,7 +36,7 @@ export async function prepareScratch(scratchDir: string | null): Promise<Scratch
     dir = defaultScratchDir();
     for (const name of await readdir(os.tmpdir()).catch(() => [] as string[])) {
       const m = /^arcbench-scratch-(\d+)$/.exec(name);
-      if (m && Number(m[1]) !== process.pid && !alive(Number(m[1]))) await rm(path.join(os.tmpdir(), name), { recursive: true, force: true });
+      if (m && Number(m[1]) !== process.pid && !processAlive(Number(m[1]))) await rm(path.join(os.tmpdir(), name), { recursive: true, force: true });
     }
   }
   await mkdir(dir, { recursive: true });

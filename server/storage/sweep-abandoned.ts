@@ -13,18 +13,10 @@ import path from 'node:path';
 import { and, eq, gt, inArray, sql } from 'drizzle-orm';
 import type { Db } from '../db/client';
 import { clips } from '../db/schema/clips';
+import { processAlive } from './scratch';
 
 const PARTIAL = /\.partial-(\d+)-(\d+)$/;
 const DAY_MS = 24 * 3600 * 1000;
-
-function alive(pid: number): boolean {
-  try {
-    process.kill(pid, 0);
-    return true;
-  } catch (err) {
-    return (err as NodeJS.ErrnoException).code === 'EPERM';
-  }
-}
 
 async function* walk(dir: string): AsyncGenerator<string> {
   let entries;
@@ -54,7 +46,7 @@ export async function sweepAbandoned(opts: { storageDir: string; db: Db; staleSe
     const pid = Number(m[1]);
     const info = await stat(file).catch(() => null);
     const old = info !== null && now - info.mtimeMs > DAY_MS;
-    if ((pid !== process.pid && !alive(pid)) || old) {
+    if ((pid !== process.pid && !processAlive(pid)) || old) {
       await rm(file, { force: true });
       result.partialUploads.push(file);
     }
