@@ -3,9 +3,11 @@
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { FFMPEG_PROBE_INTERVAL_MS, ffmpegProbeCount, primeFfmpegProbe } from '../../server/health/system-status';
+import { hashPassword } from '../../server/auth/passwords';
+import { users } from '../../server/db/schema/users';
 import { DEMO_PASSWORD, demoPerson } from '../../server/seed/demo-people';
 import { expectProblem } from '../support/problem';
-import { createTestApp, signInAs, type TestApp } from '../support/test-app';
+import { createTestApp, signInAs, uniqueSuffix, type TestApp } from '../support/test-app';
 
 let t: TestApp;
 beforeAll(async () => {
@@ -34,8 +36,11 @@ describe('GET /api/health', () => {
 
   it('gives the detailed check (versions, latency) to a team admin only', async () => {
     expectProblem(await request(t.app).get('/api/health?detail=1'), 403);
-    const viewer = await signInAs(t.app, demoPerson('viewer').email, DEMO_PASSWORD);
-    expectProblem(await viewer.get('/api/health?detail=1'), 403);
+    // A fresh person who admins no team (the demo viewer may own teams other suites created).
+    const email = `no-admin-${uniqueSuffix()}@example.test`;
+    await t.deps.db.insert(users).values({ email, displayName: 'Not an admin', passwordHash: await hashPassword(DEMO_PASSWORD) });
+    const plain = await signInAs(t.app, email, DEMO_PASSWORD);
+    expectProblem(await plain.get('/api/health?detail=1'), 403);
     const admin = await signInAs(t.app, demoPerson('admin').email, DEMO_PASSWORD);
     const res = await admin.get('/api/health?detail=1');
     expect(res.status).toBe(200);

@@ -18,10 +18,12 @@ beforeAll(async () => {
 });
 afterAll(() => t.close());
 
-/** A demo shot with a marked projectile track (the seed marks its clips). */
+/** A demo shot with a projectile and a marked projectile track (the seed marks its clips).
+ *  Other suites add shots without a projectile to the same team, so the projectile is checked too. */
 async function markedTrack(): Promise<{ shotId: string; trackId: string }> {
   const shots = await analyst.get(url('/shots')).query({ pageSize: 100 });
-  for (const shot of shots.body.items as { id: string }[]) {
+  for (const shot of shots.body.items as { id: string; projectileId: string | null }[]) {
+    if (!shot.projectileId) continue;
     const fits = (await analyst.get(url(`/shots/${shot.id}/fits`))).body as ShotFits;
     const track = fits.tracks.find((tr) => tr.kind === 'projectile' && tr.markCount >= 5);
     if (track) return { shotId: shot.id, trackId: track.id };
