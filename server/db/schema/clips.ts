@@ -1,5 +1,6 @@
 import { bigint, boolean, doublePrecision, index, integer, jsonb, pgTable, primaryKey, real, text, timestamp, uuid } from 'drizzle-orm/pg-core';
 import type { ClipStatus, ClipWarning, FrameFlag } from '../../../shared/schemas/clips';
+import type { FrameStampPosition } from '../../../shared/physics/exposure-timing';
 import { shots } from './records';
 import { teams } from './teams';
 import { users } from './users';
@@ -37,6 +38,10 @@ export const clips = pgTable(
     variableFrameRate: boolean('variable_frame_rate').notNull().default(false),
     timeBaseWarnings: jsonb('time_base_warnings').$type<ClipWarning[]>().notNull().default([]),
     duplicateOfClipId: uuid('duplicate_of_clip_id'),
+    /** Exposure (shutter) time of each frame, s; null when not stated. */
+    shutterS: doublePrecision('shutter_s'),
+    /** Where in the exposure the camera stamps each frame (shared/physics/exposure-timing.ts). */
+    frameStamp: text('frame_stamp').$type<FrameStampPosition>().notNull().default('middle'),
     inFrame: integer('in_frame').notNull(),
     outFrame: integer('out_frame').notNull(),
     status: text('status').$type<ClipStatus>().notNull().default('queued'),

@@ -1,4 +1,5 @@
-import { date, doublePrecision, index, pgTable, text, timestamp, uuid } from 'drizzle-orm/pg-core';
+import { date, doublePrecision, index, integer, jsonb, pgTable, text, timestamp, uuid } from 'drizzle-orm/pg-core';
+import type { LensCoefficients } from '../../../shared/schemas/camera';
 import { teams } from './teams';
 import { users } from './users';
 
@@ -80,10 +81,41 @@ export const shots = pgTable(
     stationPressurePa: doublePrecision('station_pressure_pa'),
     relativeHumidityPct: doublePrecision('relative_humidity_pct'),
     tapeRangeM: doublePrecision('tape_range_m'),
+    /** Wind at the firing point: speed, and the direction it blows from, clockwise from the line of fire (shared/physics/wind.ts). */
+    windSpeedMps: doublePrecision('wind_speed_mps'),
+    windFromDeg: doublePrecision('wind_from_deg'),
+    /** Height of the launch point above the ground, m. */
+    launchHeightM: doublePrecision('launch_height_m'),
+    /** Air density stated directly (used instead of temperature, pressure and humidity), with its ± tolerance. */
+    airDensityKgM3: doublePrecision('air_density_kg_m3'),
+    airDensityTolKgM3: doublePrecision('air_density_tol_kg_m3'),
     notes: text('notes'),
     createdBy: uuid('created_by').references(() => users.id, { onDelete: 'set null' }),
     createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
     updatedAt: timestamp('updated_at', { withTimezone: true }).notNull().defaultNow(),
   },
   (t) => [index('shots_team_idx').on(t.teamId, t.createdAt), index('shots_series_idx').on(t.seriesId)],
+);
+
+/**
+ * A lens the team measured once: Brown–Conrady k1, k2 on the radius normalised
+ * by the half-diagonal of the frame size it was measured at. A calibration that
+ * uses a profile copies the coefficients, so editing a profile changes no version.
+ */
+export const lensProfiles = pgTable(
+  'lens_profiles',
+  {
+    id: uuid('id').primaryKey().defaultRandom(),
+    teamId: uuid('team_id')
+      .notNull()
+      .references(() => teams.id, { onDelete: 'cascade' }),
+    name: text('name').notNull(),
+    cameraNote: text('camera_note'),
+    coefficients: jsonb('coefficients').$type<LensCoefficients>().notNull(),
+    frameWidthPx: integer('frame_width_px').notNull(),
+    frameHeightPx: integer('frame_height_px').notNull(),
+    createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
+    updatedAt: timestamp('updated_at', { withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [index('lens_profiles_team_idx').on(t.teamId)],
 );
