@@ -1,6 +1,7 @@
 // The upload handler's work once multer has streamed the file into the store:
 // inspect it where it lies, check the range, record the clip. Anything that
 // fails leaves the object unkept, and receiveClipUpload deletes it.
+import type { FrameStampPosition } from '../../shared/physics/exposure-timing';
 import type { Db } from '../db/client';
 import { HttpProblem, badRequest } from '../http/problem';
 import { isStorageUnavailable, type Storage } from '../storage/storage';
@@ -14,6 +15,8 @@ export interface UploadRequest {
   captureFps: number;
   inFrame?: number;
   outFrame?: number;
+  shutterS?: number | null;
+  frameStamp?: FrameStampPosition;
   createdBy: string | null;
   /** The pixel cap and team quota (config); checked before the clip is recorded, so no frame is ever written. */
   limits?: ExtractionLimits;
@@ -51,6 +54,8 @@ export async function acceptUpload(db: Db, storage: Storage, file: ReceivedFile,
       captureFps: r.captureFps,
       inFrame,
       outFrame,
+      shutterS: r.shutterS,
+      frameStamp: r.frameStamp,
       createdBy: r.createdBy,
     });
     file.kept = true;

@@ -1,6 +1,7 @@
 import type { Readable } from 'node:stream';
 import { and, asc, eq, sql } from 'drizzle-orm';
 import type { z } from 'zod';
+import { shutterProblem } from '../../shared/physics/exposure-timing';
 import type { ClipFrameView, ClipPatchBody, ClipView } from '../../shared/schemas/clips';
 import type { AppDeps } from '../app-deps';
 import { audit } from '../audit';
@@ -101,14 +102,32 @@ export function clipService({ db, storage, jobs, config }: ClipDeps) {
         throw badRequest(`The clip has ${row.frameCount} frames (0–${row.frameCount - 1}); inFrame ${inFrame} / outFrame ${outFrame} is outside it.`);
       }
       const captureFps = body.captureFps ?? row.captureFps;
+      const shutterS = body.shutterS === undefined ? row.shutterS : body.shutterS;
+      const frameStamp = body.frameStamp ?? row.frameStamp;
+      // A frame cannot be exposed for longer than the time between frames; the field at fault is the one sent.
+      const shutterTooLong = shutterS === null ? null : shutterProblem(shutterS, captureFps);
+      if (shutterTooLong) {
+        const path = body.shutterS !== undefined ? 'body.shutterS' : 'body.captureFps';
+        throw badRequest(shutterTooLong, { errors: [{ path, message: shutterTooLong }] });
+      }
       const rangeChanged = inFrame !== row.inFrame || outFrame !== row.outFrame;
       const rateChanged = captureFps !== row.captureFps;
-      if (!rangeChanged && !rateChanged) return view(actor.teamId, clipId);
+      const exposureChanged = shutterS !== row.shutterS || frameStamp !== row.frameStamp;
+      if (!rangeChanged && !rateChanged && !exposureChanged) return view(actor.teamId, clipId);
+
+      if (!rangeChanged && !rateChanged) {
+        // Exposure timing only: the frames and their times stay; the fit reads it.
+        await db.transaction(async (tx) => {
+          await tx.update(clips).set({ shutterS, frameStamp, updatedAt: new Date() }).where(eq(clips.id, row.id));
+          await audit(tx, { teamId: actor.teamId, actorUserId: actor.userId, action: 'clip.update', targetType: 'clip', targetId: row.id, detail: { shutterS, frameStamp } });
+        });
+        return view(actor.teamId, clipId);
+      }
 
       if (rangeChanged && limits) checkDecodedPixels({ frames: outFrame - inFrame + 1, width: row.width, height: row.height, maxDecodedPixels: limits.maxDecodedPixels });
       if (rangeChanged || row.status !== 'ready') {
         // New frames (or an extraction still to finish): let the job compute everything afresh.
-        await db.update(clips).set({ inFrame, outFrame, captureFps, updatedAt: new Date() }).where(eq(clips.id, row.id));
+        await db.update(clips).set({ inFrame, outFrame, captureFps, shutterS, frameStamp, updatedAt: new Date() }).where(eq(clips.id, row.id));
         if (row.jobId) await jobs?.cancel(row.jobId);
         await enqueue(row.id);
       } else {
@@ -126,11 +145,11 @@ export function clipService({ db, storage, jobs, config }: ClipDeps) {
           await rewriteFrameTimes(tx, row.id, frames);
           await tx
             .update(clips)
-            .set({ captureFps, variableFrameRate: timeBase.variableFrameRate, timeBaseWarnings: timeBase.warnings, updatedAt: new Date() })
+            .set({ captureFps, shutterS, frameStamp, variableFrameRate: timeBase.variableFrameRate, timeBaseWarnings: timeBase.warnings, updatedAt: new Date() })
             .where(eq(clips.id, row.id));
         });
       }
-      await audit(db, { teamId: actor.teamId, actorUserId: actor.userId, action: 'clip.update', targetType: 'clip', targetId: row.id, detail: { captureFps, inFrame, outFrame } });
+      await audit(db, { teamId: actor.teamId, actorUserId: actor.userId, action: 'clip.update', targetType: 'clip', targetId: row.id, detail: { captureFps, inFrame, outFrame, shutterS, frameStamp } });
       return view(actor.teamId, clipId);
     },
 

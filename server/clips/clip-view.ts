@@ -1,5 +1,6 @@
 import { and, eq, getTableColumns } from 'drizzle-orm';
 import { alias } from 'drizzle-orm/pg-core';
+import { midExposureShiftS } from '../../shared/physics/exposure-timing';
 import type { ClipView } from '../../shared/schemas/clips';
 import type { Db } from '../db/client';
 import { clips } from '../db/schema/clips';
@@ -42,6 +43,9 @@ export function toClipView(row: ClipRow, duplicateOf: ClipView['duplicateOf']): 
     warnings,
     inFrame: row.inFrame,
     outFrame: row.outFrame,
+    shutterS: row.shutterS,
+    frameStamp: row.frameStamp,
+    exposureShiftS: row.shutterS === null ? 0 : midExposureShiftS(row.shutterS, row.frameStamp),
     status: row.status,
     progress: row.progress,
     error: row.error,

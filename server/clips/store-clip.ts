@@ -1,5 +1,6 @@
 import { randomUUID } from 'node:crypto';
 import { and, asc, eq } from 'drizzle-orm';
+import type { FrameStampPosition } from '../../shared/physics/exposure-timing';
 import { audit } from '../audit';
 import type { Db } from '../db/client';
 import { clips } from '../db/schema/clips';
@@ -23,6 +24,9 @@ export interface NewClip {
   inFrame: number;
   outFrame: number;
   createdBy: string | null;
+  /** Exposure timing, when stated (checked against the frame interval by the caller's schema). */
+  shutterS?: number | null;
+  frameStamp?: FrameStampPosition;
 }
 
 /**
@@ -67,6 +71,8 @@ export async function storeClip(db: Db, storage: Storage, c: NewClip): Promise<s
         duplicateOfClipId: dup?.id ?? null,
         inFrame: c.inFrame,
         outFrame: c.outFrame,
+        shutterS: c.shutterS ?? null,
+        frameStamp: c.frameStamp ?? 'middle',
         status: 'queued',
         createdBy: c.createdBy,
       });

@@ -1,4 +1,6 @@
 import { z } from 'zod';
+import { shutterProblem } from '../physics/exposure-timing';
+import { ExposureInput, FrameStamp } from './camera';
 import { Uuid } from './common';
 
 // Contract of the clip API (docs/clips.md). Frame numbers are source frame
@@ -16,17 +18,31 @@ export const CaptureFps = z.coerce
   .refine(Number.isFinite, 'must be a number')
   .refine((v) => v >= 1 && v <= 100_000, 'must be between 1 and 100000 frames per second');
 
+/** Exposure (shutter) time of each frame, s; null: not stated (ExposureInput in camera.ts). */
+const ShutterS = ExposureInput.shape.shutterS;
+
+/** A frame cannot be exposed for longer than the time between frames (shared/physics/exposure-timing.ts). */
+function shutterFitsFrameInterval(v: { shutterS?: number | null; captureFps?: number }, ctx: z.RefinementCtx) {
+  if (v.shutterS === undefined || v.shutterS === null || v.captureFps === undefined) return;
+  const problem = shutterProblem(v.shutterS, v.captureFps);
+  if (problem) ctx.addIssue({ code: 'custom', path: ['shutterS'], message: problem });
+}
+
 /** Multipart text fields beside the `file` part of an upload (multipart sends strings; numbers are coerced). */
 export const ClipUploadFields = z
   .object({
     captureFps: CaptureFps,
     inFrame: FrameIndex.optional(),
     outFrame: FrameIndex.optional(),
+    /** Optional: a blank field is "not stated". */
+    shutterS: z.preprocess((v) => (v === '' || v === undefined || v === null ? undefined : typeof v === 'string' ? Number(v) : v), ShutterS.unwrap().optional()),
+    frameStamp: FrameStamp.optional(),
   })
   .refine((v) => v.inFrame === undefined || v.outFrame === undefined || v.inFrame <= v.outFrame, {
     message: 'inFrame must not be after outFrame',
     path: ['inFrame'],
-  });
+  })
+  .superRefine(shutterFitsFrameInterval);
 export type ClipUploadFields = z.infer<typeof ClipUploadFields>;
 
 export const ClipPatchBody = z
@@ -34,12 +50,16 @@ export const ClipPatchBody = z
     captureFps: CaptureFps.optional(),
     inFrame: FrameIndex.optional(),
     outFrame: FrameIndex.optional(),
+    /** null clears a stated shutter time. Checked against the (new or stored) capture rate. */
+    shutterS: ShutterS.optional(),
+    frameStamp: FrameStamp.optional(),
   })
   .strict()
   .refine((v) => v.inFrame === undefined || v.outFrame === undefined || v.inFrame <= v.outFrame, {
     message: 'inFrame must not be after outFrame',
     path: ['inFrame'],
-  });
+  })
+  .superRefine(shutterFitsFrameInterval);
 export type ClipPatchBody = z.infer<typeof ClipPatchBody>;
 
 export const CLIP_STATUSES = ['queued', 'extracting', 'ready', 'failed', 'cancelled'] as const;
@@ -84,6 +104,12 @@ export const ClipView = z.object({
   warnings: z.array(ClipWarning),
   inFrame: z.number().int(),
   outFrame: z.number().int(),
+  /** Exposure (shutter) time of each frame, s; null when not stated. */
+  shutterS: z.number().nullable(),
+  /** Where in the exposure each frame is stamped. */
+  frameStamp: FrameStamp,
+  /** Seconds the fit adds to every mark time to reach mid-exposure (0 without a shutter time). */
+  exposureShiftS: z.number(),
   status: z.enum(CLIP_STATUSES),
   /** 0..1 while extracting. */
   progress: z.number(),
