@@ -1,7 +1,7 @@
 import { and, count, eq, ilike, or, sql, type SQL } from 'drizzle-orm';
 import type { AnyPgColumn } from 'drizzle-orm/pg-core';
 import type { z } from 'zod';
-import type { ShotCreateBody, ShotListQuery, ShotSort } from '../../shared/schemas/records';
+import type { Shot, ShotCreateBody, ShotListQuery, ShotSort } from '../../shared/schemas/records';
 import { audit } from '../audit';
 import type { Actor } from '../auth/actor';
 import type { Db } from '../db/client';
@@ -11,7 +11,7 @@ import { latestClipColumn, shotClipCount } from '../db/shot-clips';
 import { badRequest, conflict, notFound } from '../http/problem';
 
 // Shots: one firing each, with the conditions it was fired in, stored exactly
-// as given (SI; air density is derived from them later, never stored here).
+// as given (SI). Air density is derived from them later, unless one was stated directly.
 
 type ListQuery = z.output<typeof ShotListQuery>;
 type ShotValues = z.output<typeof ShotCreateBody>;
@@ -31,6 +31,11 @@ const columns = {
   stationPressurePa: shots.stationPressurePa,
   relativeHumidityPct: shots.relativeHumidityPct,
   tapeRangeM: shots.tapeRangeM,
+  windSpeedMps: shots.windSpeedMps,
+  windFromDeg: shots.windFromDeg,
+  launchHeightM: shots.launchHeightM,
+  airDensityKgM3: shots.airDensityKgM3,
+  airDensityTolKgM3: shots.airDensityTolKgM3,
   notes: shots.notes,
   createdAt: shots.createdAt,
   updatedAt: shots.updatedAt,
@@ -55,10 +60,38 @@ function joined(db: Db) {
     .leftJoin(projectiles, eq(projectiles.id, shots.projectileId));
 }
 
-export async function getShot(db: Db, teamId: string, shotId: string) {
+type JoinedRow = Awaited<ReturnType<ReturnType<typeof joined>['execute']>>[number];
+
+/** The API's shot: wind and a stated air density as objects (null when not stated), the rest as stored. */
+function toShot(row: JoinedRow): Shot {
+  const { windSpeedMps, windFromDeg, airDensityKgM3, airDensityTolKgM3, createdAt, updatedAt, ...rest } = row;
+  return {
+    ...rest,
+    wind: windSpeedMps === null || windFromDeg === null ? null : { speedMps: windSpeedMps, fromDeg: windFromDeg },
+    airDensity: airDensityKgM3 === null ? null : { densityKgM3: airDensityKgM3, tolKgM3: airDensityTolKgM3 },
+    createdAt: createdAt.toISOString(),
+    updatedAt: updatedAt.toISOString(),
+  };
+}
+
+/** Column values of the shot's stated conditions; objects left out of a change stay as they are. */
+function conditionColumns(body: Partial<Pick<ShotValues, 'wind' | 'airDensity'>>) {
+  const out: Partial<typeof shots.$inferInsert> = {};
+  if (body.wind !== undefined) {
+    out.windSpeedMps = body.wind?.speedMps ?? null;
+    out.windFromDeg = body.wind?.fromDeg ?? null;
+  }
+  if (body.airDensity !== undefined) {
+    out.airDensityKgM3 = body.airDensity?.densityKgM3 ?? null;
+    out.airDensityTolKgM3 = body.airDensity?.tolKgM3 ?? null;
+  }
+  return out;
+}
+
+export async function getShot(db: Db, teamId: string, shotId: string): Promise<Shot> {
   const [row] = await joined(db).where(and(eq(shots.teamId, teamId), eq(shots.id, shotId)));
   if (!row) throw notFound('No such shot in this team.');
-  return row;
+  return toShot(row);
 }
 
 /** One page of the team's shots, sorted and filtered on the server. */
@@ -94,13 +127,17 @@ export async function listShots(db: Db, teamId: string, query: ListQuery) {
       .leftJoin(projectiles, eq(projectiles.id, shots.projectileId))
       .where(where),
   ]);
-  return { items, total, page: query.page, pageSize: query.pageSize };
+  return { items: items.map(toShot), total, page: query.page, pageSize: query.pageSize };
 }
 
 export async function createShot(db: Db, actor: Actor, body: ShotValues) {
   await checkReferences(db, actor.teamId, body);
   const id = await db.transaction(async (tx) => {
-    const [row] = await tx.insert(shots).values({ ...body, teamId: actor.teamId, createdBy: actor.userId }).returning({ id: shots.id });
+    const { wind, airDensity, ...plain } = body;
+    const [row] = await tx
+      .insert(shots)
+      .values({ ...plain, ...conditionColumns({ wind, airDensity }), teamId: actor.teamId, createdBy: actor.userId })
+      .returning({ id: shots.id });
     await audit(tx, { teamId: actor.teamId, actorUserId: actor.userId, action: 'shot.create', targetType: 'shot', targetId: row.id, detail: { label: body.label, seriesId: body.seriesId } });
     return row.id;
   });
@@ -110,10 +147,11 @@ export async function createShot(db: Db, actor: Actor, body: ShotValues) {
 export async function updateShot(db: Db, actor: Actor, shotId: string, body: Partial<ShotValues>) {
   await getShot(db, actor.teamId, shotId);
   await checkReferences(db, actor.teamId, body);
+  const { wind, airDensity, ...plain } = body;
   await db.transaction(async (tx) => {
     await tx
       .update(shots)
-      .set({ ...body, updatedAt: new Date() })
+      .set({ ...plain, ...conditionColumns({ wind, airDensity }), updatedAt: new Date() })
       .where(and(eq(shots.teamId, actor.teamId), eq(shots.id, shotId)));
     await audit(tx, { teamId: actor.teamId, actorUserId: actor.userId, action: 'shot.update', targetType: 'shot', targetId: shotId, detail: { fields: Object.keys(body) } });
   });

@@ -25,6 +25,11 @@ export const ShotResponse = z.object({
   stationPressurePa: nullableNumber,
   relativeHumidityPct: nullableNumber,
   tapeRangeM: nullableNumber,
+  /** Speed, m/s, and the direction it blows from, degrees clockwise from the line of fire (0 headwind). */
+  wind: z.object({ speedMps: z.number(), fromDeg: z.number() }).nullable(),
+  launchHeightM: nullableNumber,
+  /** Air density stated directly, used instead of temperature, pressure and humidity. */
+  airDensity: z.object({ densityKgM3: z.number(), tolKgM3: nullableNumber }).nullable(),
   notes: z.string().nullable(),
   createdAt: IsoTimestamp,
   updatedAt: IsoTimestamp,

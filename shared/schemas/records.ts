@@ -1,5 +1,6 @@
 import { z } from 'zod';
 import type { ClipStatus } from './clips';
+import { WindInput } from './camera';
 import { Uuid } from './common';
 import { limitText } from '../fits/format';
 
@@ -52,6 +53,14 @@ export const BOUNDS = {
   relativeHumidityPct: [0, 100],
   /** Up to 5 km of tape-measured range. */
   tapeRangeM: [0, 5000],
+  /** −10..100 m: a launch point a little below the ground it is measured from (a pit) up to a tall tower. */
+  launchHeightM: [-10, 100],
+  /**
+   * 0.45..1.85 kg/m³: the density the temperature and pressure bounds above allow, humid air at
+   * 60 °C and 50 kPa (≈ 0.50) up to dry air at −60 °C and 110 kPa (≈ 1.80), by the ideal-gas law ρ = p/(R T)
+   * with R = 287.05 J/(kg K) (ISO 2533 / US Standard Atmosphere 1976), with a margin.
+   */
+  airDensityKgM3: [0.45, 1.85],
 } as const;
 
 // ── Series ──────────────────────────────────────────────────────────────────
@@ -141,6 +150,16 @@ export interface Projectile {
 // ── Shots ───────────────────────────────────────────────────────────────────
 export const ShotParams = z.object({ teamId: Uuid, shotId: Uuid });
 
+/**
+ * Air density stated directly (a weather station's or a density meter's reading), used instead of
+ * temperature, pressure and humidity; tolKgM3 is a ± limit taken as rectangular (GUM §4.3.7).
+ */
+export const StatedAirDensity = z.object({
+  densityKgM3: bounded(...BOUNDS.airDensityKgM3, 'kg/m³'),
+  tolKgM3: bounded(0, 0.5, 'kg/m³').nullish().transform((v) => v ?? null),
+});
+export type StatedAirDensity = z.infer<typeof StatedAirDensity>;
+
 const shotFields = {
   seriesId: Uuid,
   launcherId: Uuid.nullish().transform((v) => v ?? null),
@@ -152,6 +171,11 @@ const shotFields = {
   stationPressurePa: nullable(bounded(...BOUNDS.stationPressurePa, 'Pa')),
   relativeHumidityPct: nullable(bounded(...BOUNDS.relativeHumidityPct, '%')),
   tapeRangeM: nullable(bounded(...BOUNDS.tapeRangeM, 'm')),
+  /** Wind at the firing point relative to the line of fire; the fit uses its along-plane part (shared/physics/wind.ts). */
+  wind: nullable(WindInput),
+  launchHeightM: nullable(bounded(...BOUNDS.launchHeightM, 'm')),
+  /** Null: the density comes from airTempC, stationPressurePa and relativeHumidityPct (or the standard atmosphere). */
+  airDensity: nullable(StatedAirDensity),
   notes: Notes,
 };
 
@@ -193,6 +217,9 @@ export interface Shot {
   stationPressurePa: number | null;
   relativeHumidityPct: number | null;
   tapeRangeM: number | null;
+  wind: WindInput | null;
+  launchHeightM: number | null;
+  airDensity: StatedAirDensity | null;
   notes: string | null;
   createdAt: string;
   updatedAt: string;
