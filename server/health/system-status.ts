@@ -6,6 +6,7 @@
 import { execFile } from 'node:child_process';
 import { promisify } from 'node:util';
 import type pg from 'pg';
+import type { HealthStatus } from '../../shared/schemas/system-responses';
 import { ffmpegBinary } from '../config';
 
 const run = promisify(execFile);
@@ -56,7 +57,7 @@ export function ffmpegProbeCount(): number {
 
 export interface SystemStatus {
   ok: boolean;
-  body: { status: 'ok' | 'degraded'; database: object; ffmpeg: object };
+  body: HealthStatus;
 }
 
 /** Whether the database answers and ffmpeg was found (at the last probe). Cheap enough to call for anyone. */

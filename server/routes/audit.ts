@@ -1,6 +1,7 @@
 import type { Request, Response } from 'express';
 import { CAN } from '../../shared/roles';
 import { PageQuery, TeamParams } from '../../shared/schemas/common';
+import { AuditPage } from '../../shared/schemas/teams';
 import type { AppDeps } from '../app-deps';
 import { signedIn, teamRole } from '../auth/access';
 import { currentTeam, input } from '../http/input';
@@ -11,7 +12,7 @@ import { teamAuditPage } from '../teams/audit-log';
 export function auditRoutes(api: RouteTable, { db }: AppDeps) {
   api.get(
     '/api/teams/:teamId/audit',
-    "The team's audit log (who did what), newest first",
+    { summary: "The team's audit log (who did what), newest first", response: AuditPage },
     signedIn,
     teamRole(CAN.manageMembers),
     validate({ params: TeamParams, query: PageQuery }),

@@ -1,5 +1,5 @@
 import type { Request, Response } from 'express';
-import { MeUpdateBody, SignInBody } from '../../shared/schemas/auth';
+import { Me, MeUpdateBody, SignInBody } from '../../shared/schemas/auth';
 import type { AppDeps } from '../app-deps';
 import { open, signedIn } from '../auth/access';
 import { loadMe } from '../auth/me';
@@ -7,13 +7,14 @@ import { signIn as checkAndSignIn, updateMe } from '../auth/sign-in';
 import { currentUser, input } from '../http/input';
 import type { RouteTable } from '../http/route-table';
 import { validate } from '../http/validate';
+import { SIGN_IN_EXAMPLE } from '../http/api-examples';
 
 export function authRoutes(api: RouteTable, { db }: AppDeps) {
   // Failed attempts are limited per account and per address by signInGuard (app.ts), which runs before this route.
-  api.post('/api/auth/sign-in', 'Sign in with e-mail and password', open, validate({ body: SignInBody }), signIn);
+  api.post('/api/auth/sign-in', { summary: 'Sign in with e-mail and password', response: Me, example: SIGN_IN_EXAMPLE }, open, validate({ body: SignInBody }), signIn);
   api.post('/api/auth/sign-out', { summary: 'Sign out (destroys the session)', status: 204 }, open, signOut);
-  api.get('/api/auth/me', 'The signed-in user and their teams', signedIn, me);
-  api.patch('/api/auth/me', 'Change my name or e-mail notification setting', signedIn, validate({ body: MeUpdateBody }), changeMe);
+  api.get('/api/auth/me', { summary: 'The signed-in user and their teams', response: Me }, signedIn, me);
+  api.patch('/api/auth/me', { summary: 'Change my name or e-mail notification setting', response: Me }, signedIn, validate({ body: MeUpdateBody }), changeMe);
 
   async function signIn(req: Request, res: Response) {
     const { body } = input(res, { body: SignInBody });

@@ -1,5 +1,6 @@
 import type { Request, Response } from 'express';
 import { z } from 'zod';
+import { HealthStatus } from '../../shared/schemas/system-responses';
 import type { AppDeps } from '../app-deps';
 import { open } from '../auth/access';
 import { isAdminOfAnyTeam } from '../health/admin-check';
@@ -12,7 +13,7 @@ import { validate } from '../http/validate';
 const HealthQuery = z.object({ detail: z.enum(['0', '1']).optional() });
 
 export function healthRoutes(api: RouteTable, { pool, db }: AppDeps) {
-  api.get('/api/health', 'Database and ffmpeg status (cheap; ?detail=1 adds versions and latency for team admins)', open, validate({ query: HealthQuery }), health);
+  api.get('/api/health', { summary: 'Database and ffmpeg status (cheap; ?detail=1 adds versions and latency for team admins)', response: HealthStatus }, open, validate({ query: HealthQuery }), health);
 
   async function health(req: Request, res: Response) {
     const wantsDetail = input(res, { query: HealthQuery }).query.detail === '1';

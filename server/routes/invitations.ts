@@ -1,10 +1,14 @@
 import type { Request, Response } from 'express';
+import { z } from 'zod';
+import { Me } from '../../shared/schemas/auth';
 import { rateLimit } from 'express-rate-limit';
 import { CAN } from '../../shared/roles';
 import { TeamParams } from '../../shared/schemas/common';
 import {
+  Invitation,
   InvitationAcceptBody,
   InvitationCreateBody,
+  InvitationPreview,
   InvitationParams,
   InvitationTokenParams,
 } from '../../shared/schemas/teams';
@@ -35,10 +39,10 @@ export function invitationRoutes(api: RouteTable, { db, config, mailer }: AppDep
       sendProblem(res, new HttpProblem(429, 'Too many attempts', 'Too many failed attempts to accept invitations from this address. Wait 15 minutes and try again.'), req.originalUrl),
   });
 
-  api.get('/api/teams/:teamId/invitations', 'Invitations of the team, newest first', signedIn, teamRole(CAN.manageMembers), validate({ params: TeamParams }), listInvitations);
+  api.get('/api/teams/:teamId/invitations', { summary: 'Invitations of the team, newest first', response: z.array(Invitation) }, signedIn, teamRole(CAN.manageMembers), validate({ params: TeamParams }), listInvitations);
   api.post(
     '/api/teams/:teamId/invitations',
-    { summary: 'Invite someone by e-mail (replaces a pending invitation to the same address)', status: 201 },
+    { summary: 'Invite someone by e-mail (replaces a pending invitation to the same address)', status: 201, response: Invitation },
     signedIn,
     teamRole(CAN.manageMembers),
     validate({ params: TeamParams, body: InvitationCreateBody }),
@@ -52,10 +56,10 @@ export function invitationRoutes(api: RouteTable, { db, config, mailer }: AppDep
     validate({ params: InvitationParams }),
     revokeInvitation,
   );
-  api.get('/api/invitations/:token', 'Preview an invitation from its link', open, validate({ params: InvitationTokenParams }), previewInvitation);
+  api.get('/api/invitations/:token', { summary: 'Preview an invitation from its link', response: InvitationPreview }, open, validate({ params: InvitationTokenParams }), previewInvitation);
   api.post(
     '/api/invitations/:token/accept',
-    'Accept an invitation: join the team (creating the account if needed) and sign in',
+    { summary: 'Accept an invitation: join the team (creating the account if needed) and sign in', response: Me },
     open,
     acceptLimit,
     validate({ params: InvitationTokenParams, body: InvitationAcceptBody }),

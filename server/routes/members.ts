@@ -1,7 +1,8 @@
 import type { Request, Response } from 'express';
+import { z } from 'zod';
 import { CAN } from '../../shared/roles';
 import { TeamParams } from '../../shared/schemas/common';
-import { MemberParams, MemberRoleBody } from '../../shared/schemas/teams';
+import { Member, MemberParams, MemberRoleBody } from '../../shared/schemas/teams';
 import type { AppDeps } from '../app-deps';
 import { signedIn, teamRole } from '../auth/access';
 import { actorOf, currentTeam, input } from '../http/input';
@@ -10,10 +11,10 @@ import { validate } from '../http/validate';
 import { changeMemberRole, membersOf, removeMember as removeTeamMember } from '../teams/members';
 
 export function memberRoutes(api: RouteTable, { db }: AppDeps) {
-  api.get('/api/teams/:teamId/members', 'Members of the team with their roles', signedIn, teamRole(CAN.read), validate({ params: TeamParams }), listMembers);
+  api.get('/api/teams/:teamId/members', { summary: 'Members of the team with their roles', response: z.array(Member) }, signedIn, teamRole(CAN.read), validate({ params: TeamParams }), listMembers);
   api.patch(
     '/api/teams/:teamId/members/:userId',
-    "Change a member's role (the last admin cannot be demoted)",
+    { summary: "Change a member's role (the last admin cannot be demoted)", response: Member },
     signedIn,
     teamRole(CAN.manageMembers),
     validate({ params: MemberParams, body: MemberRoleBody }),

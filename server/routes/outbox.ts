@@ -1,7 +1,7 @@
 import type { Request, Response } from 'express';
 import { CAN } from '../../shared/roles';
 import { PageQuery, TeamParams } from '../../shared/schemas/common';
-import { MailMessageParams } from '../../shared/schemas/mail';
+import { MailMessage, MailMessageParams, MailPage } from '../../shared/schemas/mail';
 import type { AppDeps } from '../app-deps';
 import { signedIn, teamRole } from '../auth/access';
 import { currentTeam, currentUser, input } from '../http/input';
@@ -15,14 +15,14 @@ export function outboxRoutes(api: RouteTable, { db, config }: AppDeps) {
 
   api.get(
     '/api/teams/:teamId/outbox',
-    "The team's sent mail, newest first (local mail fake only)",
+    { summary: "The team's sent mail, newest first (local mail fake only)", response: MailPage },
     signedIn,
     teamRole(CAN.manageMembers),
     validate({ params: TeamParams, query: PageQuery }),
     teamOutbox,
   );
-  api.get('/api/mail', 'Mail addressed to me, newest first (local mail fake only)', signedIn, validate({ query: PageQuery }), myMail);
-  api.get('/api/mail/:messageId', 'One message addressed to me', signedIn, validate({ params: MailMessageParams }), myMessage);
+  api.get('/api/mail', { summary: 'Mail addressed to me, newest first (local mail fake only)', response: MailPage }, signedIn, validate({ query: PageQuery }), myMail);
+  api.get('/api/mail/:messageId', { summary: 'One message addressed to me', response: MailMessage }, signedIn, validate({ params: MailMessageParams }), myMessage);
 
   async function teamOutbox(_req: Request, res: Response) {
     const { query } = input(res, { query: PageQuery });

@@ -1,7 +1,8 @@
 import type { Request, Response } from 'express';
+import { z } from 'zod';
 import { CAN } from '../../shared/roles';
 import { TeamParams } from '../../shared/schemas/common';
-import { TeamCreateBody } from '../../shared/schemas/teams';
+import { TeamCreateBody, TeamView } from '../../shared/schemas/teams';
 import type { AppDeps } from '../app-deps';
 import { signedIn, teamRole } from '../auth/access';
 import { currentTeam, currentUser, input } from '../http/input';
@@ -11,9 +12,9 @@ import { createTeam as createTeamFor, showTeam as showTeamTo } from '../teams/cr
 import { teamsOf } from '../teams/team-view';
 
 export function teamRoutes(api: RouteTable, { db }: AppDeps) {
-  api.get('/api/teams', 'My teams, with my role in each', signedIn, listMyTeams);
-  api.post('/api/teams', { summary: 'Create a team; the creator becomes its admin', status: 201 }, signedIn, validate({ body: TeamCreateBody }), createTeam);
-  api.get('/api/teams/:teamId', 'A team with its member count and my role', signedIn, teamRole(CAN.read), validate({ params: TeamParams }), showTeam);
+  api.get('/api/teams', { summary: 'My teams, with my role in each', response: z.array(TeamView) }, signedIn, listMyTeams);
+  api.post('/api/teams', { summary: 'Create a team; the creator becomes its admin', status: 201, response: TeamView }, signedIn, validate({ body: TeamCreateBody }), createTeam);
+  api.get('/api/teams/:teamId', { summary: 'A team with its member count and my role', response: TeamView }, signedIn, teamRole(CAN.read), validate({ params: TeamParams }), showTeam);
 
   async function listMyTeams(_req: Request, res: Response) {
     res.json(await teamsOf(db, currentUser(res).id));
