@@ -11,6 +11,14 @@ export const UNKNOWN_AIR_DENSITY_KG_M3 = 1.225;
  */
 export const UNKNOWN_AIR_DENSITY_REL_SIGMA = 0.03;
 
+/**
+ * Relative ± tolerance of an air density stated directly without one: ±1 %
+ * (rectangular, so u ≈ 0.58 %). Common practice for a density read off a site
+ * weather station or worked out by hand from its readings; a field meter's own
+ * readings (WEATHER_READING_SIGMAS below) give about 0.2 %.
+ */
+export const STATED_AIR_DENSITY_REL_TOL = 0.01;
+
 /** Relative humidity assumed when none was recorded, %. */
 export const UNKNOWN_RELATIVE_HUMIDITY_PCT = 50;
 /** Its standard uncertainty: uniform over 0..100 %, 100/√12 ≈ 28.9 (GUM §4.3.7), rounded up to 29. */

@@ -8,7 +8,9 @@ import { airForFit } from '../../shared/fits/air-conditions';
 import type { FitInputSnapshot, SnapshotMark } from '../../shared/fits/snapshot';
 import { buildCalibrationTransform, type CalibrationGeometry } from '../../shared/geometry/calibration-transform';
 import { markTimeAndPlace } from '../../shared/marking/mark-world';
+import { midExposureShiftS } from '../../shared/physics/exposure-timing';
 import type { FitShotInput } from '../../shared/physics/types';
+import { alongPlaneWindMps } from '../../shared/physics/wind';
 import { isFlagged, type FitMarkCounts } from '../../shared/schemas/auto-mark';
 import { reviewThresholdOf } from '../automark/settings';
 import type { Db } from '../db/client';
@@ -102,10 +104,17 @@ export async function buildFitSnapshot(db: Db, teamId: string, trackId: string):
   snapshotMarks.sort((a, b) => a.tS - b.tS);
   const muzzleWorld = muzzleMark ? transform.imageToWorld({ u: muzzleMark.uPx, v: muzzleMark.vPx }) : null;
 
+  // A directly stated density (shot.airDensityKgM3) wins over the weather readings, as in the fit command.
   const air = airForFit(shot);
+  // The exposure timing and the wind enter the fit input only when stated, so fits of records that state
+  // neither keep their input hash; stating or changing either changes it.
+  const exposureShiftS = clip.shutterS === null ? undefined : midExposureShiftS(clip.shutterS, clip.frameStamp);
+  const wind = shot.windSpeedMps === null || shot.windFromDeg === null ? null : { speedMps: shot.windSpeedMps, fromDeg: shot.windFromDeg };
   const massSigma = PROJECTILE_MASS_SIGMA_KG;
   const diameterSigma = PROJECTILE_DIAMETER_SIGMA_M;
   const fitInput: FitShotInput = {
+    ...(exposureShiftS !== undefined ? { exposureShiftS } : {}),
+    ...(wind ? { windXMps: alongPlaneWindMps(wind) } : {}),
     marks: snapshotMarks.map((m) => ({ tS: m.tS, xM: m.xM, yM: m.yM })),
     massKg: projectile.massKg,
     diameterM: projectile.diameterM,
@@ -132,6 +141,10 @@ export async function buildFitSnapshot(db: Db, teamId: string, trackId: string):
       relativeHumidityPct: shot.relativeHumidityPct,
       chamberPressurePa: shot.chamberPressurePa,
       elevationDeg: shot.elevationDeg,
+      wind,
+      launchHeightM: shot.launchHeightM,
+      airDensityKgM3: shot.airDensityKgM3,
+      airDensityTolKgM3: shot.airDensityTolKgM3,
     },
     projectile: {
       id: projectile.id,
@@ -143,7 +156,7 @@ export async function buildFitSnapshot(db: Db, teamId: string, trackId: string):
     launcher: launcher
       ? { id: launcher.id, name: launcher.name, boreM: launcher.boreM, barrelLengthM: launcher.barrelLengthM, chamberVolumeM3: launcher.chamberVolumeM3 }
       : null,
-    clip: { id: clip.id, frameRateHz: clip.captureFps },
+    clip: { id: clip.id, frameRateHz: clip.captureFps, shutterS: clip.shutterS, frameStamp: clip.frameStamp },
     calibration: {
       id: calibration.id,
       version: calibration.version,

@@ -28,4 +28,19 @@ describe('air density for a fit', () => {
     expect(air.source).toMatch(/Standard Atmosphere/);
     expect(air.densitySigmaKgM3 / air.densityKgM3).toBeCloseTo(0.03, 10);
   });
+
+  it('a density stated directly wins over the weather readings; its ± tolerance becomes u = a/√3', () => {
+    // GUM JCGM 100:2008 §4.3.7: a rectangular ±a has u = a/√3; ±0.02 → 0.011547.
+    const air = airForFit({ airTempC: 30, stationPressurePa: 90000, relativeHumidityPct: 80, airDensityKgM3: 1.1, airDensityTolKgM3: 0.02 });
+    expect(air.densityKgM3).toBe(1.1);
+    expect(air.densitySigmaKgM3).toBeCloseTo(0.011547, 6);
+    expect(air.temperatureK).toBeCloseTo(303.15, 10); // the recorded temperature still sets Mach and Reynolds numbers
+    expect(air.source).toMatch(/stated directly/);
+  });
+
+  it('a density stated without a tolerance takes the stated default (±1 %, rectangular) and says so', () => {
+    const air = airForFit({ airTempC: null, stationPressurePa: null, relativeHumidityPct: null, airDensityKgM3: 1.2 });
+    expect(air.densitySigmaKgM3).toBeCloseTo((1.2 * 0.01) / Math.sqrt(3), 12);
+    expect(air.sigmaSource).toMatch(/stated default/);
+  });
 });

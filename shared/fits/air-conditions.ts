@@ -2,6 +2,7 @@
 // uncertainty propagated from how well those conditions are usually known.
 import { humidAirDensityKgM3 } from '../physics/air';
 import {
+  STATED_AIR_DENSITY_REL_TOL,
   UNKNOWN_AIR_DENSITY_KG_M3,
   UNKNOWN_AIR_DENSITY_REL_SIGMA,
   UNKNOWN_RELATIVE_HUMIDITY_PCT,
@@ -9,12 +10,17 @@ import {
   WEATHER_READING_SIGMAS as CONDITION_SIGMAS,
 } from '../defaults';
 import { SEA_LEVEL_TEMPERATURE_K, ZERO_CELSIUS_K } from '../physics/constants';
+import { rectangularStdUncertainty } from '../uncertainty/gum';
 import { formatPressureKPa } from './format';
 
 export interface ShotConditions {
   airTempC: number | null;
   stationPressurePa: number | null;
   relativeHumidityPct: number | null;
+  /** A density stated directly (kg/m³) is used as given, like the fit command's --air-density-kgm3; absent or null: none. */
+  airDensityKgM3?: number | null;
+  /** Its ± tolerance, kg/m³ (rectangular); null: STATED_AIR_DENSITY_REL_TOL of the density. */
+  airDensityTolKgM3?: number | null;
 }
 
 export interface AirForFit {
@@ -26,6 +32,20 @@ export interface AirForFit {
 }
 
 export function airForFit(c: ShotConditions): AirForFit {
+  if (c.airDensityKgM3 !== undefined && c.airDensityKgM3 !== null) {
+    const tolStated = c.airDensityTolKgM3 !== undefined && c.airDensityTolKgM3 !== null;
+    const tol = tolStated ? c.airDensityTolKgM3! : c.airDensityKgM3 * STATED_AIR_DENSITY_REL_TOL;
+    return {
+      densityKgM3: c.airDensityKgM3,
+      densitySigmaKgM3: rectangularStdUncertainty(tol),
+      // Mach and Reynolds numbers still want a temperature: the recorded one, else the standard atmosphere's.
+      temperatureK: c.airTempC === null ? SEA_LEVEL_TEMPERATURE_K : c.airTempC + ZERO_CELSIUS_K,
+      source: `stated directly on the shot: ${c.airDensityKgM3} kg/m³ (used instead of temperature, pressure and humidity)`,
+      sigmaSource: tolStated
+        ? `stated tolerance ±${tol} kg/m³, rectangular (GUM §4.3.7)`
+        : `stated default: ±${STATED_AIR_DENSITY_REL_TOL * 100} % for a density stated without a tolerance (common practice), rectangular (GUM §4.3.7)`,
+    };
+  }
   if (c.airTempC === null || c.stationPressurePa === null) {
     return {
       densityKgM3: UNKNOWN_AIR_DENSITY_KG_M3,

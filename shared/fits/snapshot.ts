@@ -3,7 +3,9 @@
 // everything else says where those numbers came from (pixels, calibration,
 // conditions) so a reviewer can trace each one.
 import type { CalibrationGeometry } from '../geometry/calibration-transform';
+import type { FrameStampPosition } from '../physics/exposure-timing';
 import type { FitShotInput } from '../physics/types';
+import type { WindRelativeToLine } from '../physics/wind';
 import type { FitMarkCounts } from '../schemas/auto-mark';
 
 export interface SnapshotMark {
@@ -31,6 +33,12 @@ export interface FitInputSnapshot {
     relativeHumidityPct: number | null;
     chamberPressurePa: number | null;
     elevationDeg: number | null;
+    /** Wind relative to the line of fire (absent on fits stored before shots recorded it). */
+    wind?: WindRelativeToLine | null;
+    launchHeightM?: number | null;
+    /** Air density stated directly and its ± tolerance, kg/m³ (absent on older fits). */
+    airDensityKgM3?: number | null;
+    airDensityTolKgM3?: number | null;
   };
   projectile: { id: string; name: string; massKg: number; diameterM: number; referenceAreaM2: number | null };
   launcher: {
@@ -40,7 +48,13 @@ export interface FitInputSnapshot {
     barrelLengthM: number | null;
     chamberVolumeM3: number | null;
   } | null;
-  clip: { id: string; frameRateHz: number | null };
+  clip: {
+    id: string;
+    frameRateHz: number | null;
+    /** Exposure timing the mark-time shift came from (absent on fits stored before clips recorded it). */
+    shutterS?: number | null;
+    frameStamp?: FrameStampPosition;
+  };
   calibration: {
     id: string;
     version: number;
