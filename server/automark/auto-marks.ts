@@ -6,12 +6,12 @@
 // placed are kept unless the run was asked to replace them.
 import { and, eq, inArray, isNull, lt, ne, or, sql, type SQL } from 'drizzle-orm';
 import type { AutoMarkEndReason } from '../../shared/schemas/auto-mark';
-import type { Db } from '../db/client';
+import type { Db, Tx } from '../db/client';
 import { autoMarkRuns } from '../db/schema/auto-mark';
 import { marks, tracks } from '../db/schema/marking';
+import { bumpTrackRevision, upsertMarkRows } from '../marking/mark-writes';
 import type { AutoMark } from './vision';
 
-type Tx = Parameters<Parameters<Db['transaction']>[0]>[0];
 
 /** The attempt that may write for a run. */
 export interface RunOwner {
@@ -44,16 +44,6 @@ async function lockOwnedRun(tx: Tx, owner: RunOwner): Promise<void> {
   if (!row) throw new RunNotOwned();
 }
 
-async function bumpRevision(tx: Tx, trackId: string): Promise<number> {
-  const [bumped] = await tx
-    .update(tracks)
-    .set({ revision: sql`${tracks.revision} + 1` })
-    .where(eq(tracks.id, trackId))
-    .returning({ revision: tracks.revision });
-  if (!bumped) throw new TrackGone();
-  return bumped.revision;
-}
-
 /** Frames where a person's mark stands (kept unless the run replaces). */
 export async function personMarkedFrames(db: Db, trackId: string): Promise<Set<number>> {
   const rows = await db
@@ -79,7 +69,7 @@ export async function writeAutoMarks(db: Db, owner: RunOwner, batch: AutoMark[])
   if (batch.length === 0) return;
   await db.transaction(async (tx) => {
     await lockOwnedRun(tx, owner);
-    const revision = await bumpRevision(tx, owner.trackId);
+    const revision = await bumpTrackRevision(tx, owner.trackId, () => new TrackGone());
     const now = new Date();
     const rows = batch.map((m) => ({
       trackId: owner.trackId,
@@ -97,28 +87,7 @@ export async function writeAutoMarks(db: Db, owner: RunOwner, batch: AutoMark[])
       updatedBy: owner.userId,
       updatedAt: now,
     }));
-    await tx
-      .insert(marks)
-      .values(rows)
-      .onConflictDoUpdate({
-        target: [marks.trackId, marks.frameNumber],
-        set: {
-          uPx: sql`excluded.u_px`,
-          vPx: sql`excluded.v_px`,
-          placedUPx: sql`excluded.placed_u_px`,
-          placedVPx: sql`excluded.placed_v_px`,
-          snapped: sql`false`,
-          source: sql`'auto'`,
-          confidence: sql`excluded.confidence`,
-          lowConfidenceReason: sql`excluded.low_confidence_reason`,
-          autoMarkRunId: sql`excluded.auto_mark_run_id`,
-          revision: sql`excluded.revision`,
-          updatedBy: sql`excluded.updated_by`,
-          updatedAt: sql`excluded.updated_at`,
-        },
-        // A person's mark stays unless the request said replace.
-        ...(owner.replace ? {} : { setWhere: eq(marks.source, 'auto') }),
-      });
+    await upsertMarkRows(tx, rows, { overAutoOnly: !owner.replace });
     await tx.update(autoMarkRuns).set({ ...(await countsOfRun(tx, owner)), heartbeatAt: now, updatedAt: now }).where(eq(autoMarkRuns.id, owner.runId));
   });
 }
@@ -164,7 +133,7 @@ export async function finishRun(
     )!;
     const [stale] = await tx.select({ n: sql<number>`count(*)::int` }).from(marks).where(staleAuto);
     if ((stale?.n ?? 0) > 0) {
-      await bumpRevision(tx, owner.trackId);
+      await bumpTrackRevision(tx, owner.trackId, () => new TrackGone());
       await tx.delete(marks).where(staleAuto);
     }
     const now = new Date();

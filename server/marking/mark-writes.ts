@@ -35,14 +35,44 @@ function byPerson(snapped: boolean) {
   return { source: snapped ? ('snap' as const) : ('hand' as const), confidence: null, lowConfidenceReason: null, autoMarkRunId: null };
 }
 
-export async function bumpTrackRevision(tx: Tx, trackId: string): Promise<number> {
+export async function bumpTrackRevision(tx: Tx, trackId: string, whenGone: () => Error = () => notFound('No such track in this team.')): Promise<number> {
   const [bumped] = await tx
     .update(tracks)
     .set({ revision: sql`${tracks.revision} + 1` })
     .where(eq(tracks.id, trackId))
     .returning({ revision: tracks.revision });
-  if (!bumped) throw notFound('No such track in this team.');
+  if (!bumped) throw whenGone();
   return bumped.revision;
+}
+
+/**
+ * Writes whole mark rows, one per (track, frame): an existing mark on a frame
+ * takes every column of the new row. With `overAutoOnly`, a mark a person
+ * placed stays as it is (the automatic marker never overwrites people).
+ */
+export async function upsertMarkRows(tx: Tx, rows: (typeof marks.$inferInsert)[], opts: { overAutoOnly?: boolean } = {}): Promise<void> {
+  if (rows.length === 0) return;
+  await tx
+    .insert(marks)
+    .values(rows)
+    .onConflictDoUpdate({
+      target: [marks.trackId, marks.frameNumber],
+      set: {
+        uPx: sql`excluded.u_px`,
+        vPx: sql`excluded.v_px`,
+        placedUPx: sql`excluded.placed_u_px`,
+        placedVPx: sql`excluded.placed_v_px`,
+        snapped: sql`excluded.snapped`,
+        source: sql`excluded.source`,
+        confidence: sql`excluded.confidence`,
+        lowConfidenceReason: sql`excluded.low_confidence_reason`,
+        autoMarkRunId: sql`excluded.auto_mark_run_id`,
+        revision: sql`excluded.revision`,
+        updatedBy: sql`excluded.updated_by`,
+        updatedAt: sql`excluded.updated_at`,
+      },
+      ...(opts.overAutoOnly ? { setWhere: eq(marks.source, 'auto') } : {}),
+    });
 }
 
 async function storedMark(tx: Tx, trackId: string, frameNumber: number) {
@@ -115,26 +145,7 @@ export async function importMarks(
   const now = new Date();
   for (let i = 0; i < args.rows.length; i += 1000) {
     const chunk = args.rows.slice(i, i + 1000).map((r) => ({ trackId: args.trackId, ...r, ...byPerson(r.snapped), revision, updatedBy: args.userId, updatedAt: now }));
-    await tx
-      .insert(marks)
-      .values(chunk)
-      .onConflictDoUpdate({
-        target: [marks.trackId, marks.frameNumber],
-        set: {
-          uPx: sql`excluded.u_px`,
-          vPx: sql`excluded.v_px`,
-          placedUPx: sql`excluded.placed_u_px`,
-          placedVPx: sql`excluded.placed_v_px`,
-          snapped: sql`excluded.snapped`,
-          source: sql`excluded.source`,
-          confidence: sql`excluded.confidence`,
-          lowConfidenceReason: sql`excluded.low_confidence_reason`,
-          autoMarkRunId: sql`excluded.auto_mark_run_id`,
-          revision: sql`excluded.revision`,
-          updatedBy: sql`excluded.updated_by`,
-          updatedAt: sql`excluded.updated_at`,
-        },
-      });
+    await upsertMarkRows(tx, chunk);
   }
   return revision;
 }
