@@ -1,6 +1,8 @@
 import { describe, expect, it } from 'vitest';
-import { draftToCreateBody, sameDraft, transformOfDraft } from './calibration-geometry';
-import { EMPTY_CALIBRATION, type CalibrationDraft } from './types';
+import { buildCalibrationTransform } from '@shared/geometry/calibration-transform';
+import type { Calibration } from '@shared/schemas/marking';
+import { calibrationToDraft, draftToCreateBody, draftToGeometry, sameDraft, transformOfDraft } from './calibration-geometry';
+import { EMPTY_CALIBRATION, type CalibrationDraft, type LensDraft } from './types';
 
 const draft: CalibrationDraft = {
   ...EMPTY_CALIBRATION,
@@ -34,5 +36,51 @@ describe('calibration draft', () => {
   it('explains a draft that defines no transform', () => {
     const r = transformOfDraft({ ...draft, scale: { ...draft.scale!, lengthTolM: 2 } });
     expect(r).toMatchObject({ ok: false });
+  });
+
+  const stated: LensDraft = {
+    model: 'brown-conrady-radial', source: 'coefficients', k1: -0.08, k2: 0.01, k1StdUnc: 0.002, k2StdUnc: 0.001, k1k2Correlation: -0.9,
+    residualRmsPx: null, terms: null, straightLines: null, notes: [], frameWidthPx: 640, frameHeightPx: 480,
+  };
+  const edges = [[{ u: 20, v: 450 }, { u: 320, v: 470 }, { u: 620, v: 450 }], [{ u: 20, v: 30 }, { u: 320, v: 10 }, { u: 620, v: 30 }]];
+  const fitted: LensDraft = { ...stated, source: 'straight-lines', k1: -0.1004, k2: 0, residualRmsPx: 0.2, terms: 1, straightLines: edges };
+
+  it('sends fitted edges as edges and stated coefficients as stated, with the offset and level uncertainty', () => {
+    const offset = { planeDistanceM: 10, planeDistanceTolM: 0.5, referenceOffsetM: 0.2, referenceOffsetTolM: 0.05 };
+    const body = draftToCreateBody({ ...draft, lens: fitted, planeOffset: offset, levelUncertainty: { rollTolDeg: 0.5 } })!;
+    expect(body.lens).toEqual({ straightLines: edges, clickSigmaPx: 0.5 });
+    expect(body.planeOffset).toEqual(offset);
+    expect(body.levelUncertainty).toEqual({ rollTolDeg: 0.5 });
+    expect(draftToCreateBody({ ...draft, lens: stated })!.lens).toEqual({ coefficients: { k1: -0.08, k2: 0.01, k1StdUnc: 0.002, k2StdUnc: 0.001, k1k2Correlation: -0.9 } });
+  });
+
+  it('uses the plane offset in the preview transform: pixels per metre × (D − δ)/D (pinhole closed form)', () => {
+    const r = transformOfDraft({ ...draft, planeOffset: { planeDistanceM: 10, planeDistanceTolM: 0, referenceOffsetM: 0.2, referenceOffsetTolM: 0 } });
+    expect(r?.ok && r.transform.pixelsPerMetre).toBeCloseTo(196, 9);
+  });
+
+  it('compares lenses by their input: the server refitting the same edges, or unfitted clicks, are no change', () => {
+    expect(sameDraft({ ...draft, lens: fitted }, { ...draft, lens: { ...fitted, k1: -0.1003 } })).toBe(true);
+    expect(sameDraft({ ...draft, lens: fitted }, { ...draft, lens: { ...fitted, straightLines: edges.slice(0, 1) } })).toBe(false);
+    expect(sameDraft(draft, { ...draft, straightLines: edges })).toBe(true);
+    expect(sameDraft(draft, { ...draft, lens: stated })).toBe(false);
+  });
+
+  it('reads the typed level uncertainty back from the saved roll uncertainty', () => {
+    const level = { kind: 'line' as const, p1: { u: 100, v: 400 }, p2: { u: 500, v: 404 } };
+    const g = draftToGeometry({ ...draft, level, lens: stated, levelUncertainty: { endpointSigmaPx: 0.8 } })!;
+    const t = buildCalibrationTransform(g);
+    const saved = (over: Partial<Calibration>): Calibration => ({
+      id: '00000000-0000-4000-8000-000000000001', clipId: '00000000-0000-4000-8000-000000000002', version: 1,
+      scale: g.scale, origin: g.origin, level, downrange: 'right', plane: null, rollDeg: t.rollDeg,
+      rollStdUncertaintyDeg: (t.rollStdUncertaintyRad * 180) / Math.PI, lens: stated, planeOffset: null,
+      pixelsPerMetre: t.pixelsPerMetre, scaleRelUncertainty: t.scaleRelUncertainty, note: null, createdBy: null, createdAt: '2026-04-18T10:00:00Z',
+      ...over,
+    });
+    expect(calibrationToDraft(saved({})).levelUncertainty).toEqual({ endpointSigmaPx: 0.8 });
+    // A stated roll ± a: u = a/√3 (GUM §4.3.7), so a = u·√3.
+    const angle = calibrationToDraft(saved({ level: { kind: 'angle', rollDeg: 1 }, rollStdUncertaintyDeg: 0.5 / Math.sqrt(3) }));
+    expect(angle.levelUncertainty).toEqual({ rollTolDeg: 0.5 });
+    expect(sameDraft({ ...draft, level, lens: stated, levelUncertainty: { endpointSigmaPx: 0.8 } }, calibrationToDraft(saved({})))).toBe(true);
   });
 });

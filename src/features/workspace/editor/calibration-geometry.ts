@@ -3,8 +3,10 @@
 // client shows exactly the world coordinates the server stores.
 import { CLICK_SIGMA_PX } from '@shared/defaults';
 import { buildCalibrationTransform, type CalibrationGeometry, type CalibrationTransform } from '@shared/geometry/calibration-transform';
+import { DEG_PER_RAD } from '@shared/geometry/roll-uncertainty';
+import type { LensInput } from '@shared/schemas/camera';
 import type { Calibration, CalibrationCreateBody } from '@shared/schemas/marking';
-import type { CalibrationDraft } from './types';
+import type { CalibrationDraft, LensDraft, LevelUncertaintyDraft } from './types';
 
 /** A draft becomes usable once it has a scale and an origin; without a level line the camera is taken as level. */
 export function draftToGeometry(draft: CalibrationDraft): CalibrationGeometry | null {
@@ -15,7 +17,28 @@ export function draftToGeometry(draft: CalibrationDraft): CalibrationGeometry | 
     level: draft.level ?? { kind: 'angle', rollDeg: 0 },
     downrange: draft.downrange,
     plane: draft.plane,
+    lens: draft.lens ? { k1: draft.lens.k1, k2: draft.lens.k2, frameWidthPx: draft.lens.frameWidthPx, frameHeightPx: draft.lens.frameHeightPx } : null,
+    planeOffset: planeOffsetOf(draft),
+    levelUncertainty: draft.levelUncertainty,
   };
+}
+
+/** In one key order, so drafts compare equal however the offset was typed. */
+function planeOffsetOf({ planeOffset: o }: CalibrationDraft) {
+  return o
+    ? { planeDistanceM: o.planeDistanceM, planeDistanceTolM: o.planeDistanceTolM, referenceOffsetM: o.referenceOffsetM, referenceOffsetTolM: o.referenceOffsetTolM }
+    : null;
+}
+
+/**
+ * What the server is asked for: fitted edges are sent as edges (the server fits
+ * them again with the same shared code and stores its own answer), stated
+ * coefficients as stated.
+ */
+export function lensInputOf(lens: LensDraft | null): LensInput | null {
+  if (!lens) return null;
+  if (lens.source === 'straight-lines' && lens.straightLines) return { straightLines: lens.straightLines, clickSigmaPx: CLICK_SIGMA_PX };
+  return { coefficients: { k1: lens.k1, k2: lens.k2, k1StdUnc: lens.k1StdUnc, k2StdUnc: lens.k2StdUnc, k1k2Correlation: lens.k1k2Correlation } };
 }
 
 export function draftToCreateBody(draft: CalibrationDraft, note?: string): CalibrationCreateBody | null {
@@ -27,6 +50,9 @@ export function draftToCreateBody(draft: CalibrationDraft, note?: string): Calib
     level: g.level,
     downrange: g.downrange,
     plane: draft.plane ? { corners: draft.plane.corners, widthM: draft.plane.widthM, heightM: draft.plane.heightM } : null,
+    lens: lensInputOf(draft.lens),
+    planeOffset: g.planeOffset ?? null,
+    levelUncertainty: draft.levelUncertainty,
     ...(note ? { note } : {}),
   };
 }
@@ -38,7 +64,53 @@ export function calibrationToDraft(c: Calibration): CalibrationDraft {
     level: c.level,
     downrange: c.downrange,
     plane: c.plane ? { corners: c.plane.corners, widthM: c.plane.widthM, heightM: c.plane.heightM } : null,
+    straightLines: c.lens?.straightLines ?? [],
+    lens: c.lens,
+    planeOffset: c.planeOffset
+      ? {
+          planeDistanceM: c.planeOffset.planeDistanceM,
+          planeDistanceTolM: c.planeOffset.planeDistanceTolM,
+          referenceOffsetM: c.planeOffset.referenceOffsetM,
+          referenceOffsetTolM: c.planeOffset.referenceOffsetTolM,
+        }
+      : null,
+    levelUncertainty: levelUncertaintyOf(c),
   };
+}
+
+/** Six significant figures: enough for a typed σ or tolerance, and it hides the rounding of the way back. */
+const typed = (x: number) => Number(x.toPrecision(6));
+
+/**
+ * The calibration answer carries the roll's standard uncertainty, not the
+ * typed input behind it; both are linear in each other, so the input is read
+ * back: a stated roll's tolerance is u·√3 (GUM §4.3.7), a level line's click σ
+ * is u divided by the u that a 1 px click gives through the same corrections.
+ */
+function levelUncertaintyOf(c: Calibration): LevelUncertaintyDraft | null {
+  if (c.level.kind === 'angle') return { rollTolDeg: typed(c.rollStdUncertaintyDeg * Math.sqrt(3)) };
+  try {
+    const perPx = buildCalibrationTransform({
+      scale: c.scale,
+      origin: c.origin,
+      level: c.level,
+      downrange: c.downrange,
+      plane: c.plane,
+      lens: c.lens,
+      planeOffset: c.planeOffset,
+      levelUncertainty: { endpointSigmaPx: 1 },
+    }).rollStdUncertaintyRad;
+    return perPx > 0 ? { endpointSigmaPx: typed(c.rollStdUncertaintyDeg / DEG_PER_RAD / perPx) } : null;
+  } catch {
+    return null;
+  }
+}
+
+/** The level uncertainty a draft stands for, defaults filled in (a line: the usual click σ; a stated roll: ± 0). */
+export function effectiveLevelUncertainty(draft: CalibrationDraft): { endpointSigmaPx: number } | { rollTolDeg: number } {
+  const lu = draft.levelUncertainty;
+  if (draft.level?.kind === 'line') return { endpointSigmaPx: typed(lu?.endpointSigmaPx ?? CLICK_SIGMA_PX) };
+  return { rollTolDeg: typed(lu?.rollTolDeg ?? 0) };
 }
 
 export type TransformResult = { ok: true; transform: CalibrationTransform } | { ok: false; message: string } | null;
@@ -54,8 +126,21 @@ export function transformOfDraft(draft: CalibrationDraft): TransformResult {
   }
 }
 
-/** Same calibration, reading "no level given" as the 0° roll it is saved as. */
+/**
+ * Same calibration, reading "no level given" as the 0° roll it is saved as.
+ * The lens is compared by what would be sent (edges or stated coefficients),
+ * not by fitted numbers, and straight edges clicked but not fitted are no
+ * change to the calibration yet.
+ */
 export function sameDraft(a: CalibrationDraft, b: CalibrationDraft): boolean {
-  const g = (d: CalibrationDraft) => JSON.stringify(draftToGeometry(d) ?? d);
+  const g = (d: CalibrationDraft) => {
+    const geometry = draftToGeometry(d);
+    const { straightLines: _unfitted, ...rest } = d;
+    return JSON.stringify(
+      geometry
+        ? { ...geometry, lens: lensInputOf(d.lens), levelUncertainty: effectiveLevelUncertainty(d) }
+        : { ...rest, lens: lensInputOf(d.lens), levelUncertainty: effectiveLevelUncertainty(d) },
+    );
+  };
   return g(a) === g(b);
 }

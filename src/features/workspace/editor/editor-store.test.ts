@@ -200,6 +200,31 @@ describe('editor store', () => {
     expect(editor.getState().calibrationDraft.scale).toBeNull();
   });
 
+  it('straight edges clicked with the straight-edge tool go into the draft, survive a tool switch and undo edge by edge', () => {
+    const { editor } = loadedEditor();
+    editor.setTool('straight-edge');
+    const edge = (v: number) => {
+      for (const u of [20, 300, 600]) editor.toolEvent({ type: 'pointer-down', point: { u, v: v + (u === 300 ? 8 : 0) }, button: 0 });
+      editor.toolEvent({ type: 'key', key: 'Enter' });
+    };
+    edge(40);
+    edge(440);
+    expect(editor.getState().calibrationDraft.straightLines).toHaveLength(2);
+    editor.setTool('place');
+    editor.setTool('straight-edge');
+    expect(editor.getState().calibrationDraft.straightLines[1]).toEqual([{ u: 20, v: 440 }, { u: 300, v: 448 }, { u: 600, v: 440 }]);
+    editor.undo();
+    expect(editor.getState().calibrationDraft.straightLines).toHaveLength(1);
+  });
+
+  it('the corrected-grid overlay is a view switch, outside history', () => {
+    const { editor } = loadedEditor({}, { canMark: false, canCalibrate: false });
+    expect(editor.getState().lensGridOn).toBe(false);
+    editor.setLensGrid(true);
+    expect(editor.getState().lensGridOn).toBe(true);
+    expect(editor.getState().history.undo).toHaveLength(0);
+  });
+
   it('a server correction is shown without entering history or the write channel', () => {
     const { editor, writes } = loadedEditor();
     editor.placeMark({ u: 1, v: 1 });

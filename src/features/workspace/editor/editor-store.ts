@@ -8,6 +8,7 @@ import { originTool, type OriginState } from './tools/origin-tool';
 import { placeTool, type PlaceState } from './tools/place-tool';
 import { planeFixTool, type PlaneFixState } from './tools/plane-fix-tool';
 import { rulerTool, type RulerState } from './tools/ruler-tool';
+import { straightEdgeTool, type StraightEdgeState } from './tools/straight-edge-tool';
 import type { Tool, ToolContext, ToolDialog, ToolEffect, ToolEvent } from './tools/tool-types';
 import {
   EMPTY_CALIBRATION,
@@ -28,6 +29,7 @@ export interface ToolStates {
   'origin-pin': OriginState;
   horizon: HorizonState;
   'plane-fix': PlaneFixState;
+  'straight-edge': StraightEdgeState;
   hand: null;
 }
 
@@ -58,6 +60,8 @@ export interface EditorState {
   permissions: EditorPermissions;
   /** Refine clicks to the projectile's centroid (on by default). */
   snapOn: boolean;
+  /** Draw a grid of world-straight lines through the lens model, and the clicked straight edges, on the frame. */
+  lensGridOn: boolean;
 }
 
 export interface MarkWrite {
@@ -82,9 +86,10 @@ const TOOLS: { [K in Exclude<ToolId, 'hand'>]: Tool<ToolStates[K]> } = {
   'origin-pin': originTool,
   horizon: horizonTool,
   'plane-fix': planeFixTool,
+  'straight-edge': straightEdgeTool,
 };
 
-const CALIBRATION_TOOLS: ToolId[] = ['ruler', 'origin-pin', 'horizon', 'plane-fix'];
+const CALIBRATION_TOOLS: ToolId[] = ['ruler', 'origin-pin', 'horizon', 'plane-fix', 'straight-edge'];
 
 /** Grab radius for dragging a mark: 8 screen pixels, whatever the zoom. */
 const GRAB_RADIUS_SCREEN_PX = 8;
@@ -96,6 +101,7 @@ export function initialToolStates(): ToolStates {
     'origin-pin': originTool.initial,
     horizon: horizonTool.initial,
     'plane-fix': planeFixTool.initial,
+    'straight-edge': straightEdgeTool.initial,
     hand: null,
   };
 }
@@ -117,6 +123,7 @@ export function initialEditorState(): EditorState {
     history: EMPTY_HISTORY,
     permissions: { canMark: false, canCalibrate: false },
     snapOn: true,
+    lensGridOn: false,
   };
 }
 
@@ -200,6 +207,7 @@ export function createEditor(options: EditorOptions = {}) {
     activeTrackId: state.activeTrackId,
     markOnFrame: markAt(state, state.activeTrackId, state.frameNumber),
     grabRadiusPx: GRAB_RADIUS_SCREEN_PX / state.view.zoom,
+    straightLines: state.calibrationDraft.straightLines,
   });
 
   const runEffects = (effects: ToolEffect[]) => {
@@ -234,6 +242,9 @@ export function createEditor(options: EditorOptions = {}) {
           break;
         case 'set-plane':
           editor.setCalibration({ plane: effect.plane });
+          break;
+        case 'set-straight-lines':
+          editor.setCalibration({ straightLines: effect.lines });
           break;
       }
     }
@@ -296,6 +307,10 @@ export function createEditor(options: EditorOptions = {}) {
 
     setSnap(on: boolean) {
       if (on !== state.snapOn) set({ ...state, snapOn: on });
+    },
+
+    setLensGrid(on: boolean) {
+      if (on !== state.lensGridOn) set({ ...state, lensGridOn: on });
     },
 
     setView(view: ViewTransform) {

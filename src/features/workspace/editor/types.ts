@@ -4,6 +4,7 @@
 
 import type { PixelPoint } from '@shared/geometry/points';
 import type { MarkSource } from '@shared/schemas/auto-mark';
+import type { LensCorrection } from '@shared/schemas/camera';
 import type { Downrange, LevelInput, PlaneCorrectionInput, ScaleReference, TrackKind } from '@shared/schemas/marking';
 
 /** The editor's short name for the one pixel point type. */
@@ -42,6 +43,22 @@ export interface FrameInfo {
 export type ScaleDraft = Omit<ScaleReference, 'endpointSigmaPx'>;
 export type LevelDraft = LevelInput;
 export type PlaneDraft = PlaneCorrectionInput;
+/** The lens correction in use, in the shape the server returns it (fitted here for a preview, or as saved). */
+export type LensDraft = LensCorrection;
+
+/** Camera distance to the flight plane and the scale reference's offset from it (positive towards the camera), each ± a tolerance. */
+export interface PlaneOffsetDraft {
+  planeDistanceM: number;
+  planeDistanceTolM: number;
+  referenceOffsetM: number;
+  referenceOffsetTolM: number;
+}
+
+/** Click σ of a level line's end points, or the ± tolerance of a stated roll; absent: the usual defaults. */
+export interface LevelUncertaintyDraft {
+  endpointSigmaPx?: number;
+  rollTolDeg?: number;
+}
 
 export interface CalibrationDraft {
   scale: ScaleDraft | null;
@@ -50,11 +67,28 @@ export interface CalibrationDraft {
   plane: PlaneDraft | null;
   /** Which way the shot flies on screen. */
   downrange: Downrange;
+  /** Edges straight in the world, clicked with the straight-edge tool (frame pixels), waiting to be fitted or already fitted. */
+  straightLines: Point[][];
+  /** Lens correction; null: an ideal lens. */
+  lens: LensDraft | null;
+  /** Null: the scale reference is taken to lie in the flight plane. */
+  planeOffset: PlaneOffsetDraft | null;
+  levelUncertainty: LevelUncertaintyDraft | null;
 }
 
-export const EMPTY_CALIBRATION: CalibrationDraft = { scale: null, origin: null, level: null, plane: null, downrange: 'right' };
+export const EMPTY_CALIBRATION: CalibrationDraft = {
+  scale: null,
+  origin: null,
+  level: null,
+  plane: null,
+  downrange: 'right',
+  straightLines: [],
+  lens: null,
+  planeOffset: null,
+  levelUncertainty: null,
+};
 
-export type ToolId = 'place' | 'ruler' | 'origin-pin' | 'horizon' | 'plane-fix' | 'hand';
+export type ToolId = 'place' | 'ruler' | 'origin-pin' | 'horizon' | 'plane-fix' | 'straight-edge' | 'hand';
 
 /** How the frame sits on screen: screen = image * zoom + pan (CSS pixels). */
 export interface ViewTransform {

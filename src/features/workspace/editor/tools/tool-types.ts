@@ -20,6 +20,8 @@ export interface ToolContext {
   markOnFrame: EditorMark | null;
   /** How far from a mark (in image pixels) a press still grabs it. */
   grabRadiusPx: number;
+  /** Straight edges already finished in the calibration draft (the straight-edge tool adds to them). */
+  straightLines?: readonly Point[][];
 }
 
 export type ToolDialog = 'scale-length' | 'level-angle' | 'plane-size';
@@ -34,7 +36,8 @@ export type ToolEffect =
   | { type: 'set-scale'; scale: ScaleDraft }
   | { type: 'set-origin'; origin: Point }
   | { type: 'set-level'; level: LevelDraft }
-  | { type: 'set-plane'; plane: PlaneDraft };
+  | { type: 'set-plane'; plane: PlaneDraft }
+  | { type: 'set-straight-lines'; lines: Point[][] };
 
 export interface ToolResult<S> {
   state: S;
