@@ -1,13 +1,16 @@
 import { createHash } from 'node:crypto';
 import type { NextFunction, Request, Response } from 'express';
+import { z } from 'zod';
 import { CAN } from '../../shared/roles';
 import { Uuid } from '../../shared/schemas/common';
 import {
   ClipFrameImageParams,
   ClipIdParams,
+  ClipFrameView,
   ClipPatchBody,
   ClipThumbnailParams,
   ClipUploadFields,
+  ClipView,
   ShotClipParams,
 } from '../../shared/schemas/clips';
 import type { AppDeps } from '../app-deps';
@@ -20,6 +23,7 @@ import { frameStoreUnavailable } from '../clips/intake';
 import { isStorageUnavailable } from '../storage/storage';
 import type { RouteTable } from '../http/route-table';
 import { validate } from '../http/validate';
+import { CLIP_UPLOAD_EXAMPLE } from '../http/api-examples';
 
 const IMMUTABLE = 'private, max-age=31536000, immutable';
 
@@ -29,10 +33,10 @@ export function clipRoutes(api: RouteTable, deps: AppDeps) {
   const shotClips = '/api/teams/:teamId/shots/:shotId/clips';
   const clip = '/api/teams/:teamId/clips/:clipId';
 
-  api.get(shotClips, 'Clips of a shot, oldest first', signedIn, teamRole(CAN.read), validate({ params: ShotClipParams }), listClips);
+  api.get(shotClips, { summary: 'Clips of a shot, oldest first', response: z.array(ClipView) }, signedIn, teamRole(CAN.read), validate({ params: ShotClipParams }), listClips);
   api.post(
     shotClips,
-    { summary: 'Upload a clip (multipart: file, captureFps, optional inFrame/outFrame); extraction is queued', bodyType: 'multipart/form-data', status: 201 },
+    { summary: 'Upload a clip (multipart: file, captureFps, optional inFrame/outFrame); extraction is queued', bodyType: 'multipart/form-data', status: 201, response: ClipView, example: CLIP_UPLOAD_EXAMPLE },
     signedIn,
     teamRole(CAN.editShots),
     requireShotOfTeam,
@@ -40,19 +44,19 @@ export function clipRoutes(api: RouteTable, deps: AppDeps) {
     validate({ params: ShotClipParams, body: ClipUploadFields }),
     uploadClip,
   );
-  api.get(clip, 'A clip with its time base, warnings and extraction status (poll while extracting)', signedIn, teamRole(CAN.read), validate({ params: ClipIdParams }), getClip);
+  api.get(clip, { summary: 'A clip with its time base, warnings and extraction status (poll while extracting)', response: ClipView }, signedIn, teamRole(CAN.read), validate({ params: ClipIdParams }), getClip);
   api.patch(
     clip,
-    'Change the capture rate (times are recomputed) or the in/out range (frames are re-extracted)',
+    { summary: 'Change the capture rate (times are recomputed) or the in/out range (frames are re-extracted)', response: ClipView },
     signedIn,
     teamRole(CAN.editShots),
     validate({ params: ClipIdParams, body: ClipPatchBody }),
     patchClip,
   );
-  api.post(`${clip}/extract`, { summary: 'Extract the frames again', status: 202 }, signedIn, teamRole(CAN.editShots), validate({ params: ClipIdParams }), reExtract);
-  api.post(`${clip}/cancel`, 'Cancel a queued or running extraction', signedIn, teamRole(CAN.editShots), validate({ params: ClipIdParams }), cancelExtraction);
+  api.post(`${clip}/extract`, { summary: 'Extract the frames again', status: 202, response: ClipView }, signedIn, teamRole(CAN.editShots), validate({ params: ClipIdParams }), reExtract);
+  api.post(`${clip}/cancel`, { summary: 'Cancel a queued or running extraction', response: ClipView }, signedIn, teamRole(CAN.editShots), validate({ params: ClipIdParams }), cancelExtraction);
   api.delete(clip, { summary: 'Delete a clip, its frames and its files', status: 204 }, signedIn, teamRole(CAN.editShots), validate({ params: ClipIdParams }), deleteClip);
-  api.get(`${clip}/frames`, 'Extracted frames with their times and flags', signedIn, teamRole(CAN.read), validate({ params: ClipIdParams }), listFrames);
+  api.get(`${clip}/frames`, { summary: 'Extracted frames with their times and flags', response: z.array(ClipFrameView) }, signedIn, teamRole(CAN.read), validate({ params: ClipIdParams }), listFrames);
   api.get(
     `${clip}/frames/:frameNumber/image`,
     { summary: 'One extracted frame as JPEG (strong ETag, immutable caching)', produces: 'image/jpeg' },

@@ -1,5 +1,6 @@
 import { CAN } from '../../shared/roles';
 import { TeamParams } from '../../shared/schemas/common';
+import { ProjectileList, ProjectileResponse } from '../../shared/schemas/record-responses';
 import { ProjectileCreateBody, ProjectileParams, ProjectileUpdateBody } from '../../shared/schemas/records';
 import type { AppDeps } from '../app-deps';
 import { signedIn, teamRole } from '../auth/access';
@@ -15,9 +16,9 @@ const EDIT_PROJECTILES = CAN.editEquipment;
 export function projectileRoutes(api: RouteTable, { db }: AppDeps) {
   const { list, create, getOne, update, remove } = teamRecordHandlers(projectileRecords(db), 'projectileId');
   const base = '/api/teams/:teamId/projectiles';
-  api.get(base, 'List the team’s projectiles', signedIn, teamRole(CAN.read), validate({ params: TeamParams }), list);
-  api.post(base, { summary: 'Add a projectile', status: 201 }, signedIn, teamRole(EDIT_PROJECTILES), validate({ params: TeamParams, body: ProjectileCreateBody }), create);
-  api.get(`${base}/:projectileId`, 'One projectile', signedIn, teamRole(CAN.read), validate({ params: ProjectileParams }), getOne);
-  api.patch(`${base}/:projectileId`, 'Change a projectile', signedIn, teamRole(EDIT_PROJECTILES), validate({ params: ProjectileParams, body: ProjectileUpdateBody }), update);
+  api.get(base, { summary: 'List the team’s projectiles', response: ProjectileList }, signedIn, teamRole(CAN.read), validate({ params: TeamParams }), list);
+  api.post(base, { summary: 'Add a projectile', status: 201, response: ProjectileResponse }, signedIn, teamRole(EDIT_PROJECTILES), validate({ params: TeamParams, body: ProjectileCreateBody }), create);
+  api.get(`${base}/:projectileId`, { summary: 'One projectile', response: ProjectileResponse }, signedIn, teamRole(CAN.read), validate({ params: ProjectileParams }), getOne);
+  api.patch(`${base}/:projectileId`, { summary: 'Change a projectile', response: ProjectileResponse }, signedIn, teamRole(EDIT_PROJECTILES), validate({ params: ProjectileParams, body: ProjectileUpdateBody }), update);
   api.delete(`${base}/:projectileId`, { summary: 'Delete a projectile no shot uses (409 otherwise)', status: 204 }, signedIn, teamRole(EDIT_PROJECTILES), validate({ params: ProjectileParams }), remove);
 }

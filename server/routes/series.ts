@@ -1,6 +1,7 @@
 import type { Request, Response } from 'express';
 import { CAN } from '../../shared/roles';
 import { TeamParams } from '../../shared/schemas/common';
+import { SeriesList, SeriesResponse } from '../../shared/schemas/record-responses';
 import { SeriesCreateBody, SeriesListQuery, SeriesParams, SeriesUpdateBody } from '../../shared/schemas/records';
 import type { AppDeps } from '../app-deps';
 import { signedIn, teamRole } from '../auth/access';
@@ -16,10 +17,10 @@ import { createSeries, deleteSeries, getSeries, listSeries, updateSeries } from 
  */
 export function seriesRoutes(api: RouteTable, { db }: AppDeps) {
   const base = '/api/teams/:teamId/series';
-  api.get(base, 'List the team’s test series (with shot counts)', signedIn, teamRole(CAN.read), validate({ params: TeamParams, query: SeriesListQuery }), list);
-  api.post(base, { summary: 'Create a test series', status: 201 }, signedIn, teamRole(CAN.editShots), validate({ params: TeamParams, body: SeriesCreateBody }), create);
-  api.get(`${base}/:seriesId`, 'One test series', signedIn, teamRole(CAN.read), validate({ params: SeriesParams }), getOne);
-  api.patch(`${base}/:seriesId`, 'Change a test series', signedIn, teamRole(CAN.editShots), validate({ params: SeriesParams, body: SeriesUpdateBody }), update);
+  api.get(base, { summary: 'List the team’s test series (with shot counts)', response: SeriesList }, signedIn, teamRole(CAN.read), validate({ params: TeamParams, query: SeriesListQuery }), list);
+  api.post(base, { summary: 'Create a test series', status: 201, response: SeriesResponse }, signedIn, teamRole(CAN.editShots), validate({ params: TeamParams, body: SeriesCreateBody }), create);
+  api.get(`${base}/:seriesId`, { summary: 'One test series', response: SeriesResponse }, signedIn, teamRole(CAN.read), validate({ params: SeriesParams }), getOne);
+  api.patch(`${base}/:seriesId`, { summary: 'Change a test series', response: SeriesResponse }, signedIn, teamRole(CAN.editShots), validate({ params: SeriesParams, body: SeriesUpdateBody }), update);
   api.delete(`${base}/:seriesId`, { summary: 'Delete a test series that has no shots (409 otherwise)', status: 204 }, signedIn, teamRole(CAN.editShots), validate({ params: SeriesParams }), remove);
 
   async function list(_req: Request, res: Response) {

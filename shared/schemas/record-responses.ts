@@ -4,11 +4,50 @@ import { Uuid } from './common';
 import type { Page, Shot } from './records';
 
 // What the record routes answer, as zod, for the OpenAPI document and the contract
-// test. The TypeScript shapes in records.ts are checked against these below, so the
-// two cannot drift apart (they become z.infer of these once records.ts is free to change).
+// test. Series, Launcher and Projectile in records.ts are z.infer of these; the Shot
+// interface there is checked against ShotResponse below, so the two cannot drift apart.
 
 const IsoTimestamp = z.string().describe('ISO 8601 date and time');
 const nullableNumber = z.number().nullable();
+
+export const SeriesResponse = z.object({
+  id: Uuid,
+  name: z.string(),
+  /** YYYY-MM-DD (ISO 8601 calendar date, no time zone). */
+  testDate: z.string(),
+  site: z.string().nullable(),
+  notes: z.string().nullable(),
+  createdAt: IsoTimestamp,
+  shotCount: z.number().int().min(0),
+});
+export const SeriesList = z.array(SeriesResponse);
+
+export const LauncherResponse = z.object({
+  id: Uuid,
+  name: z.string(),
+  kind: z.string().nullable(),
+  boreM: nullableNumber,
+  barrelLengthM: nullableNumber,
+  chamberVolumeM3: nullableNumber,
+  maxWorkingPressurePa: nullableNumber,
+  valveType: z.string().nullable(),
+  notes: z.string().nullable(),
+  createdAt: IsoTimestamp,
+});
+export const LauncherList = z.array(LauncherResponse);
+
+export const ProjectileResponse = z.object({
+  id: Uuid,
+  name: z.string(),
+  massKg: z.number(),
+  diameterM: z.number(),
+  shape: z.string().nullable(),
+  /** Frontal area used for Cd; null: π d²/4. */
+  referenceAreaM2: nullableNumber,
+  notes: z.string().nullable(),
+  createdAt: IsoTimestamp,
+});
+export const ProjectileList = z.array(ProjectileResponse);
 
 export const ShotResponse = z.object({
   id: Uuid,

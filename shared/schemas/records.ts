@@ -2,6 +2,7 @@ import { z } from 'zod';
 import type { ClipStatus } from './clips';
 import { WindInput } from './camera';
 import { Uuid } from './common';
+import type { LauncherResponse, ProjectileResponse, SeriesResponse } from './record-responses';
 import { limitText } from '../fits/format';
 
 // Test records: series, launchers, projectiles, shots. Every quantity is SI in
@@ -83,15 +84,7 @@ export const SeriesListQuery = z.object({
   dir: z.enum(['asc', 'desc']).default('desc'),
 });
 
-export interface Series {
-  id: string;
-  name: string;
-  testDate: string;
-  site: string | null;
-  notes: string | null;
-  createdAt: string;
-  shotCount: number;
-}
+export type Series = z.infer<typeof SeriesResponse>;
 
 // ── Launchers ───────────────────────────────────────────────────────────────
 export const LauncherParams = z.object({ teamId: Uuid, launcherId: Uuid });
@@ -109,18 +102,7 @@ export const LauncherCreateBody = z.object({
 export type LauncherCreateBody = z.input<typeof LauncherCreateBody>;
 export const LauncherUpdateBody = LauncherCreateBody.partial().refine((v) => Object.keys(v).length > 0, 'Send at least one field to change');
 
-export interface Launcher {
-  id: string;
-  name: string;
-  kind: string | null;
-  boreM: number | null;
-  barrelLengthM: number | null;
-  chamberVolumeM3: number | null;
-  maxWorkingPressurePa: number | null;
-  valveType: string | null;
-  notes: string | null;
-  createdAt: string;
-}
+export type Launcher = z.infer<typeof LauncherResponse>;
 
 // ── Projectiles ─────────────────────────────────────────────────────────────
 export const ProjectileParams = z.object({ teamId: Uuid, projectileId: Uuid });
@@ -136,16 +118,7 @@ export const ProjectileCreateBody = z.object({
 export type ProjectileCreateBody = z.input<typeof ProjectileCreateBody>;
 export const ProjectileUpdateBody = ProjectileCreateBody.partial().refine((v) => Object.keys(v).length > 0, 'Send at least one field to change');
 
-export interface Projectile {
-  id: string;
-  name: string;
-  massKg: number;
-  diameterM: number;
-  shape: string | null;
-  referenceAreaM2: number | null;
-  notes: string | null;
-  createdAt: string;
-}
+export type Projectile = z.infer<typeof ProjectileResponse>;
 
 // ── Shots ───────────────────────────────────────────────────────────────────
 export const ShotParams = z.object({ teamId: Uuid, shotId: Uuid });
