@@ -11,6 +11,7 @@ import { calibrations } from '../db/schema/marking';
 import { badRequest } from '../http/problem';
 import { calibrationValues, listCalibrationViews } from './calibration-records';
 import { lensCorrectionOf } from './lens-correction';
+import { resolveLensProfile } from './lens-from-profile';
 import { loadClip } from './scope';
 import type { LensCorrection } from '../../shared/schemas/camera';
 
@@ -40,7 +41,10 @@ export async function calibrateClip(db: Db, actor: Actor, clipId: string, body: 
     // The lens's normalised radius refers to the served (upright) frame, as the clicks do.
     const [size] = await db.select({ width: clips.width, height: clips.height, rotationDeg: clips.rotationDeg }).from(clips).where(eq(clips.id, clip.id));
     const turned = size.rotationDeg === 90 || size.rotationDeg === 270;
-    lens = lensCorrectionOf(body.lens, { widthPx: turned ? size.height : size.width, heightPx: turned ? size.width : size.height });
+    const frame = { widthPx: turned ? size.height : size.width, heightPx: turned ? size.width : size.height };
+    const named = await resolveLensProfile(db, actor.teamId, body.lens, frame);
+    lens = lensCorrectionOf(named.input, frame);
+    if (lens && named.profile) lens = { ...lens, source: 'profile', profile: named.profile };
     transform = buildCalibrationTransform({
       ...body,
       lens: lens ? { k1: lens.k1, k2: lens.k2, frameWidthPx: lens.frameWidthPx, frameHeightPx: lens.frameHeightPx } : null,

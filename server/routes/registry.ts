@@ -12,6 +12,7 @@ import { seriesRoutes } from './series';
 import { shotRoutes } from './shots';
 import { launcherRoutes } from './launchers';
 import { projectileRoutes } from './projectiles';
+import { lensProfileRoutes } from './lens-profiles';
 import { clipRoutes } from './clips';
 import { calibrationRoutes } from './calibrations';
 import { trackRoutes } from './tracks';
@@ -39,6 +40,7 @@ export function registerAllRoutes(api: RouteTable, deps: AppDeps): void {
   shotRoutes(api.section('shots'), deps);
   launcherRoutes(api.section('launchers'), deps);
   projectileRoutes(api.section('projectiles'), deps);
+  lensProfileRoutes(api.section('lens-profiles'), deps);
   clipRoutes(api.section('clips'), deps);
   calibrationRoutes(api.section('calibrations'), deps);
   trackRoutes(api.section('tracks'), deps);

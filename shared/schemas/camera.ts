@@ -1,5 +1,6 @@
 import { z } from 'zod';
 import { PixelPoint } from '../geometry/points';
+import { Uuid } from './common';
 import { FRAME_STAMP_POSITIONS } from '../physics/exposure-timing';
 
 // What a real camera adds to a calibration, a clip and a shot (issue #12):
@@ -32,25 +33,30 @@ export type LensCoefficients = z.infer<typeof LensCoefficients>;
 export const StraightLine = z.array(PixelPoint).max(200, 'at most 200 points per straight edge');
 
 /**
- * Lens correction: either straight edges clicked in the frame (the server fits
- * the coefficients), or known coefficients (a lens profile measured once), not both.
+ * Lens correction, one of three: straight edges clicked in the frame (the server
+ * fits the coefficients), known coefficients, or a team lens profile by id (the
+ * server copies its coefficients into the calibration, so a later edit of the
+ * profile changes no calibration version).
  */
 export const LensInput = z
   .object({
     straightLines: z.array(StraightLine).max(40, 'at most 40 straight edges').optional(),
     coefficients: LensCoefficients.optional(),
+    profileId: Uuid.optional(),
     /** Standard uncertainty of each straight-edge click, px; floors the fitted coefficients' uncertainty. */
     clickSigmaPx: finite('clickSigmaPx').refine((v) => v >= 0 && v <= 20, 'clickSigmaPx must be between 0 and 20').optional(),
   })
-  .refine((v) => (v.straightLines !== undefined) !== (v.coefficients !== undefined), {
-    message: 'give either straightLines (to fit) or coefficients (known), not both and not neither',
+  .refine((v) => [v.straightLines, v.coefficients, v.profileId].filter((x) => x !== undefined).length === 1, {
+    message: 'give exactly one of straightLines (to fit), coefficients (known) or profileId (a team lens profile)',
   });
 export type LensInput = z.input<typeof LensInput>;
 
 /** The lens correction as stored and returned: the model, its coefficients and how well they are known. */
 export const LensCorrection = z.object({
   model: z.literal('brown-conrady-radial'),
-  source: z.enum(['straight-lines', 'coefficients']),
+  source: z.enum(['straight-lines', 'coefficients', 'profile']),
+  /** The team lens profile the coefficients were copied from (source 'profile'); absent or null otherwise. */
+  profile: z.object({ id: Uuid, name: z.string() }).nullable().optional(),
   k1: z.number(),
   k2: z.number(),
   k1StdUnc: z.number(),
