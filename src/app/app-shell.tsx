@@ -1,4 +1,4 @@
-import { useEffect, useState } from 'react';
+import { useState, type MouseEvent } from 'react';
 import { Outlet, useLocation, useMatch, useParams } from 'react-router';
 import { cx } from '@/components/ui/cx';
 import { lastTeamId } from '@/lib/last-team';
@@ -15,10 +15,17 @@ export function AppShell() {
   const { teamId } = useParams();
   // The marking workspace wants every pixel of width for the frame; other pages read better at a measure.
   const fullWidth = useMatch('/t/:teamId/clips/:clipId/workspace') !== null;
-  // Below 1024 px the side navigation folds into a menu opened from the top bar; following a link closes it.
-  const [navOpen, setNavOpen] = useState(false);
+  // Below 1024 px the side navigation folds into a menu opened from the top bar. The menu
+  // belongs to the page it was opened on, so any change of page (a link, back, forward) folds
+  // it in the same render that shows the new page, with no frame of the old menu over it.
   const { pathname } = useLocation();
-  useEffect(() => setNavOpen(false), [pathname]);
+  const [navOpenOn, setNavOpenOn] = useState<string | null>(null);
+  const navOpen = navOpenOn === pathname;
+  // Following a link folds it at the click: a page whose code is still loading (or the page
+  // already shown) must not leave the menu covering the screen.
+  const closeNavOnLink = (e: MouseEvent<HTMLElement>) => {
+    if (e.target instanceof Element && e.target.closest('a[href]')) setNavOpenOn(null);
+  };
   if (!me) return null;
   // Outside a team page (mail, settings) the side bar keeps the last team open.
   const sideTeam = me.teams.find((t) => t.id === teamId) ?? me.teams.find((t) => t.id === lastTeamId()) ?? me.teams[0];
@@ -34,7 +41,7 @@ export function AppShell() {
           className="-ml-1 inline-flex h-9 items-center gap-2 rounded-md px-2 text-body text-paper hover:bg-paper/10 lg:hidden"
           aria-expanded={navOpen}
           aria-controls="side-navigation"
-          onClick={() => setNavOpen((open) => !open)}
+          onClick={() => setNavOpenOn(navOpen ? null : pathname)}
         >
           <svg aria-hidden viewBox="0 0 16 16" className="h-4 w-4" fill="none" stroke="currentColor" strokeWidth="1.6">
             {navOpen ? <path d="M3 3l10 10M13 3L3 13" /> : <path d="M2 4h12M2 8h12M2 12h12" />}
@@ -53,6 +60,7 @@ export function AppShell() {
             'w-56 shrink-0 border-r border-line bg-paper-sunk lg:static lg:block lg:bg-paper-sunk/50 lg:shadow-none',
             navOpen ? 'absolute inset-y-0 left-0 z-40 block shadow-xl' : 'hidden',
           )}
+          onClick={closeNavOnLink}
         >
           <SideNav team={sideTeam} />
         </aside>
