@@ -1,3 +1,4 @@
+import { useState } from 'react';
 import { Badge } from '@/components/ui/badge';
 import { Button } from '@/components/ui/button';
 import { Card } from '@/components/ui/card';
@@ -5,10 +6,13 @@ import { KeyValueList } from '@/components/ui/key-value-list';
 import { SegmentedControl } from '@/components/ui/segmented-control';
 import { formatNumber, formatPercent } from '@/lib/format';
 import type { Calibration } from '@shared/schemas/marking';
-import { draftToCreateBody, sameDraft, calibrationToDraft, type TransformResult } from '../editor/calibration-geometry';
+import { DEG_PER_RAD } from '@shared/geometry/roll-uncertainty';
+import { draftToCreateBody, effectiveLevelUncertainty, sameDraft, calibrationToDraft, type TransformResult } from '../editor/calibration-geometry';
 import type { Editor } from '../editor/editor-store';
 import { useEditor } from '../hooks/use-editor';
 import { useCreateCalibration } from '@/api/calibrations/create-calibration';
+import { LensPanel } from './lens-panel';
+import { PlaneOffsetDialog } from './plane-offset-dialog';
 
 interface CalibrationCardProps {
   editor: Editor;
@@ -16,10 +20,13 @@ interface CalibrationCardProps {
   clipId: string;
   saved: Calibration | null;
   transform: TransformResult;
+  /** Frame size of the clip, px: the lens model's radius is normalised by its half-diagonal. */
+  frameSize: { width: number; height: number };
 }
 
 /** What the calibration says now (draft or saved), what it implies, and saving it as the next version. */
-export function CalibrationCard({ editor, teamId, clipId, saved, transform }: CalibrationCardProps) {
+export function CalibrationCard({ editor, teamId, clipId, saved, transform, frameSize }: CalibrationCardProps) {
+  const [offsetOpen, setOffsetOpen] = useState(false);
   const draft = useEditor(editor, (s) => s.calibrationDraft);
   const canCalibrate = useEditor(editor, (s) => s.permissions.canCalibrate);
   const create = useCreateCalibration(teamId, clipId);
@@ -34,6 +41,12 @@ export function CalibrationCard({ editor, teamId, clipId, saved, transform }: Ca
     : draft.level.kind === 'angle'
       ? `stated roll ${formatNumber(draft.level.rollDeg, { decimals: 2 })}°`
       : `from a level line`;
+  const o = draft.planeOffset;
+  const offsetText = o
+    ? `reference ${formatNumber(o.referenceOffsetM, { digits: 3 })} ± ${formatNumber(o.referenceOffsetTolM, { digits: 2 })} m towards the camera, plane at ${formatNumber(o.planeDistanceM, { digits: 4 })} ± ${formatNumber(o.planeDistanceTolM, { digits: 2 })} m`
+    : 'none stated — reference taken to lie in the flight plane';
+  const lu = effectiveLevelUncertainty(draft);
+  const levelUncText = 'endpointSigmaPx' in lu ? `level-line clicks ± ${formatNumber(lu.endpointSigmaPx, { digits: 3 })} px (1σ)` : `stated roll ± ${formatNumber(lu.rollTolDeg, { digits: 3 })}°`;
 
   return (
     <Card
@@ -47,11 +60,22 @@ export function CalibrationCard({ editor, teamId, clipId, saved, transform }: Ca
           { label: 'Origin', value: draft.origin ? `${formatNumber(draft.origin.u, { decimals: 1 })}, ${formatNumber(draft.origin.v, { decimals: 1 })} px` : 'not set — use the Origin pin', numeric: true },
           { label: 'Level', value: levelText },
           { label: 'Plane fix', value: draft.plane ? `${draft.plane.widthM} × ${draft.plane.heightM} m rectangle` : 'none (camera square to the flight plane)' },
+          { label: 'Plane offset', value: offsetText },
+          { label: 'Level uncertainty', value: levelUncText },
           { label: 'Pixels per metre', value: t ? formatNumber(t.pixelsPerMetre, { digits: 5 }) : '—', numeric: true },
           { label: 'Scale uncertainty (1σ)', value: t ? formatPercent(t.scaleRelUncertainty, 2) : '—', numeric: true },
           { label: 'Camera roll used', value: t ? `${formatNumber(t.rollDeg, { decimals: 2 })}°` : '—', numeric: true },
+          { label: 'Roll uncertainty (1σ)', value: t ? `${formatNumber(t.rollStdUncertaintyRad * DEG_PER_RAD, { digits: 2 })}°` : '—', numeric: true },
+          ...(t?.planeOffset ? [{ label: 'Plane-offset factor (D − δ)/D', value: `${formatNumber(t.planeOffset.factor, { digits: 5 })} ± ${formatPercent(t.planeOffset.relStdUncertainty, 2)}`, numeric: true }] : []),
         ]}
       />
+      {canCalibrate && (
+        <Button size="sm" className="mt-2" onClick={() => setOffsetOpen(true)}>
+          Plane offset and level uncertainty…
+        </Button>
+      )}
+      {offsetOpen && <PlaneOffsetDialog editor={editor} draft={draft} onClose={() => setOffsetOpen(false)} />}
+      <LensPanel editor={editor} frameSize={frameSize} saved={saved} saveError={create.error} />
       <div className="mt-3 flex flex-wrap items-center justify-between gap-2">
         <SegmentedControl
           label="Shot flies towards"

@@ -17,6 +17,13 @@ export const TOOL_ENTRIES: ToolEntry[] = [
   { id: 'origin-pin', label: 'Origin pin', key: 'O', kind: 'calibrate', hint: 'Click the point that is x = 0, y = 0.' },
   { id: 'horizon', label: 'Horizon', key: 'H', kind: 'calibrate', hint: 'Click two points on a line that is level in the world, or press A to type the roll.' },
   { id: 'plane-fix', label: 'Plane fix', key: 'F', kind: 'calibrate', hint: 'Click four corners of a known rectangle in the flight plane: top-left, top-right, bottom-right, bottom-left.' },
+  {
+    id: 'straight-edge',
+    label: 'Straight edge',
+    key: 'E',
+    kind: 'calibrate',
+    hint: 'Click 3 or more points along an edge that is straight in the world (a rail, a post); Enter or a double-click ends it. Backspace takes back a point.',
+  },
   { id: 'hand', label: 'Hand', key: 'G', kind: 'view', hint: 'Drag to move the view.' },
 ];
 
@@ -24,6 +31,7 @@ export function ToolPalette({ editor }: { editor: Editor }) {
   const active = useEditor(editor, (s) => s.activeTool);
   const { canMark, canCalibrate } = useEditor(editor, (s) => s.permissions);
   const snapOn = useEditor(editor, (s) => s.snapOn);
+  const edgeNotice = useEditor(editor, (s) => (s.activeTool === 'straight-edge' ? s.toolStates['straight-edge'].notice : null));
   const allowed = (kind: ToolEntry['kind']) => kind === 'view' || (kind === 'mark' ? canMark : canCalibrate);
   const activeEntry = TOOL_ENTRIES.find((t) => t.id === active);
   return (
@@ -55,6 +63,7 @@ export function ToolPalette({ editor }: { editor: Editor }) {
         </label>
       </div>
       {activeEntry && <p className="text-micro text-ink-faint">{activeEntry.hint}</p>}
+      {edgeNotice && <p role="status" className="text-micro font-medium text-alert">{edgeNotice}</p>}
       {!canMark && !canCalibrate && (
         <p className="text-micro text-ink-soft">Read-only: your role can look at frames and marks but not change them.</p>
       )}

@@ -144,7 +144,14 @@ function Workspace({ teamId, clipId }: { teamId: string; clipId: string }) {
         <aside className="flex flex-col gap-3" aria-label="Panels">
           <TracksPanel editor={editor} onAdd={addTrack} adding={data.createTrack.isPending} teamId={teamId} clipId={clipId} />
           <AutoMarkPanel teamId={teamId} editor={editor} auto={auto} threshold={threshold} canSetThreshold={can(CAN.runFits)} />
-          <CalibrationCard editor={editor} teamId={teamId} clipId={clipId} saved={data.savedCalibration} transform={transformResult} />
+          <CalibrationCard
+            editor={editor}
+            teamId={teamId}
+            clipId={clipId}
+            saved={data.savedCalibration}
+            transform={transformResult}
+            frameSize={{ width: clip.frameWidth, height: clip.frameHeight }}
+          />
           <PreviewLegend preview={preview} markCount={markCount} calibrated={!!transform} />
         </aside>
       </div>

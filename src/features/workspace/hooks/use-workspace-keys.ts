@@ -6,7 +6,7 @@ import type { Editor } from '../editor/editor-store';
 import type { ToolId } from '../editor/types';
 import { recordStepKey } from '../components/frame-timings';
 
-export const TOOL_KEYS: Record<string, ToolId> = { p: 'place', r: 'ruler', o: 'origin-pin', h: 'horizon', f: 'plane-fix', g: 'hand' };
+export const TOOL_KEYS: Record<string, ToolId> = { p: 'place', r: 'ruler', o: 'origin-pin', h: 'horizon', f: 'plane-fix', e: 'straight-edge', g: 'hand' };
 
 function isTyping(target: EventTarget | null): boolean {
   if (!(target instanceof HTMLElement)) return false;
@@ -134,6 +134,9 @@ export const SHORTCUTS: { keys: string; what: string }[] = [
   { keys: 'O', what: 'Origin pin: click where x = 0, y = 0' },
   { keys: 'H', what: 'Horizon: two points on a level line (A types the angle)' },
   { keys: 'F', what: 'Plane fix: four corners of a known rectangle' },
+  { keys: 'E', what: 'Straight edge: 3 or more points along an edge straight in the world; Enter or a double-click ends it' },
+  { keys: 'Backspace', what: 'Straight edge: take back the last point (on an empty edge, reopens the last one)' },
+  { keys: 'Delete (straight edge)', what: 'Clear every straight edge (Ctrl + Z brings them back)' },
   { keys: 'G or hold Space', what: 'Move the view by dragging (middle button works too)' },
   { keys: 'Wheel, + / −', what: 'Zoom at the cursor / in and out' },
   { keys: '0', what: 'Fit the frame to the window' },
