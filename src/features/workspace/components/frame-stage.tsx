@@ -8,6 +8,7 @@ import type { FrameCache } from '../editor/frame-cache';
 import { fitToWindow, panTransition, screenToImage, wheelZoomFactor, zoomAtCursor, type PanState } from '../editor/tools/view-behaviour';
 import { useEditor } from '../hooks/use-editor';
 import { CalibrationOverlay } from './calibration-overlay';
+import { LensOverlay } from './lens-overlay';
 import { Loupe } from './loupe';
 import { useMarkNotes } from '../hooks/use-mark-notes';
 import { MarkNotesOverlay } from './mark-notes-overlay';
@@ -50,6 +51,7 @@ export function FrameStage({ editor, frameCache, imageSize, transform, preview, 
   const activeTool = useEditor(editor, (s) => s.activeTool);
   const toolStates = useEditor(editor, (s) => s.toolStates);
   const draft = useEditor(editor, (s) => s.calibrationDraft);
+  const lensGridOn = useEditor(editor, (s) => s.lensGridOn);
   const activeTrackId = useEditor(editor, (s) => s.activeTrackId);
   const marks = useEditor(editor, (s) => (activeTrackId ? s.marksByTrack[activeTrackId] : undefined));
 
@@ -182,6 +184,7 @@ export function FrameStage({ editor, frameCache, imageSize, transform, preview, 
       data-frame={frameNumber}
       data-shown-frame={shown?.frameNumber ?? ''}
       data-loupe={showLoupe ? 'on' : 'off'}
+      data-lens-grid={lensGridOn && draft.lens ? 'on' : 'off'}
       onContextMenu={(e) => e.preventDefault()}
       onMouseLeave={() => setPointer(null)}
     >
@@ -191,6 +194,13 @@ export function FrameStage({ editor, frameCache, imageSize, transform, preview, 
             {shown && <KonvaImage ref={imageNode} image={shown.image} x={view.panX} y={view.panY} scaleX={view.zoom} scaleY={view.zoom} />}
           </Layer>
           <Layer listening={false} imageSmoothingEnabled={false}>
+            <LensOverlay
+              lens={draft.lens}
+              straightLines={draft.straightLines}
+              view={view}
+              gridOn={lensGridOn}
+              edgeInProgress={activeTool === 'straight-edge' ? toolStates['straight-edge'] : null}
+            />
             <CalibrationOverlay draft={draft} view={view} activeTool={activeTool} toolStates={toolStates} />
             <PreviewOverlay preview={preview} transform={transform} view={view} />
             <MarksOverlay marks={marks} frameNumber={frameNumber} view={view} dragging={toolStates.place} />
