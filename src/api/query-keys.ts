@@ -66,6 +66,10 @@ export const projectileKeys = {
   all: (teamId: string) => [...team(teamId), 'projectiles'] as const,
 };
 
+export const lensProfileKeys = {
+  all: (teamId: string) => [...team(teamId), 'lens-profiles'] as const,
+};
+
 export const clipKeys = {
   all: (teamId: string) => [...team(teamId), 'clips'] as const,
   shotClips: (teamId: string, shotId: string) => [...clipKeys.all(teamId), 'shot', shotId] as const,
