@@ -75,7 +75,7 @@ export function CalibrationCard({ editor, teamId, clipId, saved, transform, fram
         </Button>
       )}
       {offsetOpen && <PlaneOffsetDialog editor={editor} draft={draft} onClose={() => setOffsetOpen(false)} />}
-      <LensPanel editor={editor} frameSize={frameSize} saved={saved} saveError={create.error} />
+      <LensPanel editor={editor} teamId={teamId} frameSize={frameSize} saved={saved} saveError={create.error} />
       <div className="mt-3 flex flex-wrap items-center justify-between gap-2">
         <SegmentedControl
           label="Shot flies towards"

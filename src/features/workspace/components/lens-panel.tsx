@@ -2,8 +2,11 @@ import { useState } from 'react';
 import { Button } from '@/components/ui/button';
 import { CheckboxField } from '@/components/ui/checkbox-field';
 import { KeyValueList } from '@/components/ui/key-value-list';
+import { SelectField } from '@/components/ui/select-field';
+import { useLensProfiles } from '@/api/lens-profiles/list-lens-profiles';
 import { ApiError } from '@/lib/api-client';
 import { formatNumber } from '@/lib/format';
+import type { LensProfile } from '@shared/schemas/lens-profiles';
 import type { Calibration } from '@shared/schemas/marking';
 import { lensInputOf } from '../editor/calibration-geometry';
 import type { Editor } from '../editor/editor-store';
@@ -13,6 +16,7 @@ import { LensCoefficientsDialog } from './lens-coefficients-dialog';
 
 interface LensPanelProps {
   editor: Editor;
+  teamId: string;
   frameSize: { width: number; height: number };
   saved: Calibration | null;
   /** The last failed save, to show the server's word on the lens beside it. */
@@ -28,7 +32,32 @@ const sameEdges = (a: readonly Point[][] | null | undefined, b: readonly Point[]
 
 function sourceText(lens: LensDraft): string {
   if (lens.source === 'straight-lines') return `fitted to ${lens.straightLines?.length ?? 0} straight edges`;
+  if (lens.source === 'profile') return `team lens profile “${lens.profile?.name ?? 'unnamed'}”`;
   return 'stated coefficients';
+}
+
+/**
+ * The coefficients act on the radius over the half-diagonal, so a profile carries over to
+ * frames of its shape (either orientation) and no other; the server refuses the rest (1 % as there).
+ */
+function sameShape(p: LensProfile, frame: { width: number; height: number }): boolean {
+  const shape = (w: number, h: number) => Math.max(w, h) / Math.min(w, h);
+  return Math.abs(shape(p.frameWidthPx, p.frameHeightPx) / shape(frame.width, frame.height) - 1) <= 0.01;
+}
+
+function lensOfProfile(p: LensProfile, frame: { width: number; height: number }): LensDraft {
+  return {
+    model: 'brown-conrady-radial',
+    source: 'profile',
+    profile: { id: p.id, name: p.name },
+    ...p.coefficients,
+    residualRmsPx: null,
+    terms: null,
+    straightLines: null,
+    notes: p.cameraNote ? [p.cameraNote] : [],
+    frameWidthPx: frame.width,
+    frameHeightPx: frame.height,
+  };
 }
 
 /**
@@ -37,7 +66,8 @@ function sourceText(lens: LensDraft): string {
  * uncertainties, the straightness residual and the fit's remarks; switch the
  * corrected grid on the frame.
  */
-export function LensPanel({ editor, frameSize, saved, saveError }: LensPanelProps) {
+export function LensPanel({ editor, teamId, frameSize, saved, saveError }: LensPanelProps) {
+  const profiles = useLensProfiles(teamId);
   const draft = useEditor(editor, (s) => s.calibrationDraft);
   const canCalibrate = useEditor(editor, (s) => s.permissions.canCalibrate);
   const gridOn = useEditor(editor, (s) => s.lensGridOn);
@@ -90,7 +120,9 @@ export function LensPanel({ editor, frameSize, saved, saveError }: LensPanelProp
               ? `As saved in version ${saved?.version}.`
               : lens.source === 'straight-lines'
                 ? 'Fitted here with the same code the server runs; saving sends the edges and the server fits them again.'
-                : 'Not saved yet: saving stores these coefficients with the next version.'}
+                : lens.source === 'profile'
+                  ? 'Not saved yet: saving copies the profile’s coefficients into the next version.'
+                  : 'Not saved yet: saving stores these coefficients with the next version.'}
           </p>
         </>
       ) : (
@@ -110,6 +142,23 @@ export function LensPanel({ editor, frameSize, saved, saveError }: LensPanelProp
           {lens && <Button size="sm" variant="ghost" onClick={() => editor.setCalibration({ lens: null })}>No lens correction</Button>}
           {straightLines.length > 0 && <Button size="sm" variant="ghost" onClick={() => editor.setCalibration({ straightLines: [] })}>Clear edges</Button>}
         </div>
+      )}
+      {canCalibrate && profiles.data && profiles.data.length > 0 && (
+        <SelectField
+          fieldClassName="mt-2"
+          label="Team lens profile"
+          placeholder="Choose a profile…"
+          value={lens?.source === 'profile' ? (lens.profile?.id ?? '') : ''}
+          options={profiles.data.map((p) => ({
+            value: p.id,
+            label: sameShape(p, frameSize) ? `${p.name} (${p.frameWidthPx}×${p.frameHeightPx})` : `${p.name} — measured on ${p.frameWidthPx}×${p.frameHeightPx}, another frame shape`,
+            disabled: !sameShape(p, frameSize),
+          }))}
+          onChange={(e) => {
+            const p = profiles.data.find((x) => x.id === e.target.value);
+            if (p) editor.setCalibration({ lens: lensOfProfile(p, frameSize) });
+          }}
+        />
       )}
       <CheckboxField
         fieldClassName="mt-2"

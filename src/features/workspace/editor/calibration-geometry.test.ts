@@ -52,6 +52,9 @@ describe('calibration draft', () => {
     expect(body.planeOffset).toEqual(offset);
     expect(body.levelUncertainty).toEqual({ rollTolDeg: 0.5 });
     expect(draftToCreateBody({ ...draft, lens: stated })!.lens).toEqual({ coefficients: { k1: -0.08, k2: 0.01, k1StdUnc: 0.002, k2StdUnc: 0.001, k1k2Correlation: -0.9 } });
+    // A team profile is named, not copied: the server copies its coefficients when the version is saved.
+    const profile = { ...stated, source: 'profile' as const, profile: { id: '00000000-0000-4000-8000-0000000000aa', name: 'Wide action cam' } };
+    expect(draftToCreateBody({ ...draft, lens: profile })!.lens).toEqual({ profileId: '00000000-0000-4000-8000-0000000000aa' });
   });
 
   it('uses the plane offset in the preview transform: pixels per metre × (D − δ)/D (pinhole closed form)', () => {

@@ -38,6 +38,8 @@ function planeOffsetOf({ planeOffset: o }: CalibrationDraft) {
 export function lensInputOf(lens: LensDraft | null): LensInput | null {
   if (!lens) return null;
   if (lens.source === 'straight-lines' && lens.straightLines) return { straightLines: lens.straightLines, clickSigmaPx: CLICK_SIGMA_PX };
+  // The server copies the profile's coefficients as they are when the version is saved.
+  if (lens.source === 'profile' && lens.profile) return { profileId: lens.profile.id };
   return { coefficients: { k1: lens.k1, k2: lens.k2, k1StdUnc: lens.k1StdUnc, k2StdUnc: lens.k2StdUnc, k1k2Correlation: lens.k1k2Correlation } };
 }
 
