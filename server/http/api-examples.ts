@@ -60,3 +60,61 @@ export const CLIP_UPLOAD_EXAMPLE = {
     updatedAt: '2026-04-18T09:42:11.204Z',
   },
 };
+
+const TOMAS = { id: ANALYST_ID, displayName: 'Tomas Reyes' };
+
+/** A 2.000 m bar (±2 mm) 1000 px long, origin at the muzzle, a level line along the berm top; no plane, lens or offset correction. */
+export const CALIBRATE_EXAMPLE = {
+  request: {
+    scale: { p1: { u: 100, v: 600 }, p2: { u: 1100, v: 600 }, lengthM: 2, lengthTolM: 0.002, endpointSigmaPx: 0.5 },
+    origin: { u: 140, v: 610 },
+    level: { kind: 'line', p1: { u: 80, v: 655 }, p2: { u: 1180, v: 655 } },
+    downrange: 'right',
+    note: 'Bar on the stand at the muzzle, 09:50',
+  },
+  response: {
+    id: '7e2b9d40-1c5f-4a86-b3e7-0d9c6f2a8b15',
+    clipId: CLIP_ID,
+    version: 1,
+    scale: { p1: { u: 100, v: 600 }, p2: { u: 1100, v: 600 }, lengthM: 2, lengthTolM: 0.002, endpointSigmaPx: 0.5 },
+    origin: { u: 140, v: 610 },
+    level: { kind: 'line', p1: { u: 80, v: 655 }, p2: { u: 1180, v: 655 } },
+    downrange: 'right',
+    plane: null,
+    rollDeg: 0,
+    rollStdUncertaintyDeg: 0.037,
+    lens: null,
+    planeOffset: null,
+    pixelsPerMetre: 500,
+    scaleRelUncertainty: 0.00091,
+    note: 'Bar on the stand at the muzzle, 09:50',
+    createdBy: TOMAS,
+    createdAt: '2026-04-18T09:55:02.418Z',
+  },
+};
+
+/** Placing a new mark on frame 120 (expectedRevision null: create only); times and places come from the clip's frame table and current calibration. */
+export const MARK_PUT_EXAMPLE = {
+  request: { uPx: 640.5, vPx: 310, snapped: false, expectedRevision: null },
+  response: {
+    mark: {
+      frameNumber: 120,
+      uPx: 640.5,
+      vPx: 310,
+      placedUPx: 640.5,
+      placedVPx: 310,
+      snapped: false,
+      source: 'hand',
+      confidence: null,
+      lowConfidenceReason: null,
+      revision: 18,
+      updatedBy: TOMAS,
+      updatedAt: '2026-04-18T10:03:27.902Z',
+      tS: 0.5,
+      xM: 1.001,
+      yM: 0.6,
+    },
+    trackRevision: 18,
+    created: true,
+  },
+};

@@ -1,6 +1,6 @@
 import type { Request, Response } from 'express';
 import { CAN } from '../../shared/roles';
-import { AutoMarkBody, AutoMarkRunParams, AutoMarkSettings, AutoMarkTrackParams } from '../../shared/schemas/auto-mark';
+import { AutoMarkBody, AutoMarkRun, AutoMarkRunList, AutoMarkRunParams, AutoMarkSettings, AutoMarkStarted, AutoMarkTrackParams } from '../../shared/schemas/auto-mark';
 import { TeamParams } from '../../shared/schemas/common';
 import type { AppDeps } from '../app-deps';
 import { signedIn, teamRole } from '../auth/access';
@@ -19,12 +19,12 @@ import { validate } from '../http/validate';
 export function autoMarkRoutes(api: RouteTable, deps: AppDeps) {
   const { db } = deps;
   const runs = '/api/teams/:teamId/auto-mark-runs/:runId';
-  api.post('/api/teams/:teamId/tracks/:trackId/auto-mark', { summary: 'Start marking a track automatically', status: 202 }, signedIn, teamRole(CAN.mark), validate({ params: AutoMarkTrackParams, body: AutoMarkBody }), start);
-  api.get('/api/teams/:teamId/tracks/:trackId/auto-mark-runs', 'Auto-mark runs of a track, newest first', signedIn, teamRole(CAN.read), validate({ params: AutoMarkTrackParams }), listForTrack);
-  api.get(runs, 'One auto-mark run: state, progress, counts, launch frame, why it ended', signedIn, teamRole(CAN.read), validate({ params: AutoMarkRunParams }), getOne);
-  api.post(`${runs}/cancel`, 'Cancel a queued or running auto-mark run', signedIn, teamRole(CAN.mark), validate({ params: AutoMarkRunParams }), cancel);
-  api.get('/api/teams/:teamId/auto-mark-settings', 'The team’s review threshold for automatic marks', signedIn, teamRole(CAN.read), validate({ params: TeamParams }), getSettings);
-  api.put('/api/teams/:teamId/auto-mark-settings', 'Set the team’s review threshold for automatic marks', signedIn, teamRole(CAN.runFits), validate({ params: TeamParams, body: AutoMarkSettings }), putSettings);
+  api.post('/api/teams/:teamId/tracks/:trackId/auto-mark', { summary: 'Start marking a track automatically', status: 202, response: AutoMarkStarted }, signedIn, teamRole(CAN.mark), validate({ params: AutoMarkTrackParams, body: AutoMarkBody }), start);
+  api.get('/api/teams/:teamId/tracks/:trackId/auto-mark-runs', { summary: 'Auto-mark runs of a track, newest first', response: AutoMarkRunList }, signedIn, teamRole(CAN.read), validate({ params: AutoMarkTrackParams }), listForTrack);
+  api.get(runs, { summary: 'One auto-mark run: state, progress, counts, launch frame, why it ended', response: AutoMarkRun }, signedIn, teamRole(CAN.read), validate({ params: AutoMarkRunParams }), getOne);
+  api.post(`${runs}/cancel`, { summary: 'Cancel a queued or running auto-mark run', response: AutoMarkRun }, signedIn, teamRole(CAN.mark), validate({ params: AutoMarkRunParams }), cancel);
+  api.get('/api/teams/:teamId/auto-mark-settings', { summary: 'The team’s review threshold for automatic marks', response: AutoMarkSettings }, signedIn, teamRole(CAN.read), validate({ params: TeamParams }), getSettings);
+  api.put('/api/teams/:teamId/auto-mark-settings', { summary: 'Set the team’s review threshold for automatic marks', response: AutoMarkSettings }, signedIn, teamRole(CAN.runFits), validate({ params: TeamParams, body: AutoMarkSettings }), putSettings);
 
   const actor = (res: Response) => ({ teamId: currentTeam(res).id, userId: currentUser(res).id });
 

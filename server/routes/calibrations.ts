@@ -1,11 +1,12 @@
 import type { Request, Response } from 'express';
 import { CAN } from '../../shared/roles';
-import { CalibrationCreateBody, ClipParams } from '../../shared/schemas/marking';
+import { Calibration, CalibrationCreateBody, CalibrationList, ClipParams, CurrentCalibration } from '../../shared/schemas/marking';
 import type { AppDeps } from '../app-deps';
 import { signedIn, teamRole } from '../auth/access';
 import { actorOf, currentTeam, input } from '../http/input';
 import type { RouteTable } from '../http/route-table';
 import { validate } from '../http/validate';
+import { CALIBRATE_EXAMPLE } from '../http/api-examples';
 import { clipCalibrations, currentClipCalibration } from '../marking/calibrations';
 import { calibrateAndHandOff } from '../marking/hand-offs';
 
@@ -17,9 +18,9 @@ import { calibrateAndHandOff } from '../marking/hand-offs';
 export function calibrationRoutes(api: RouteTable, deps: AppDeps) {
   const { db } = deps;
   const base = '/api/teams/:teamId/clips/:clipId/calibrations';
-  api.get(base, 'All calibration versions of a clip, newest first', signedIn, teamRole(CAN.read), validate({ params: ClipParams }), list);
-  api.get(`${base}/current`, 'The clip’s current calibration (null when uncalibrated)', signedIn, teamRole(CAN.read), validate({ params: ClipParams }), current);
-  api.post(base, { summary: 'Calibrate the clip: stores a new version', status: 201 }, signedIn, teamRole(CAN.calibrate), validate({ params: ClipParams, body: CalibrationCreateBody }), create);
+  api.get(base, { summary: 'All calibration versions of a clip, newest first', response: CalibrationList }, signedIn, teamRole(CAN.read), validate({ params: ClipParams }), list);
+  api.get(`${base}/current`, { summary: 'The clip’s current calibration (null when uncalibrated)', response: CurrentCalibration }, signedIn, teamRole(CAN.read), validate({ params: ClipParams }), current);
+  api.post(base, { summary: 'Calibrate the clip: stores a new version', status: 201, response: Calibration, example: CALIBRATE_EXAMPLE }, signedIn, teamRole(CAN.calibrate), validate({ params: ClipParams, body: CalibrationCreateBody }), create);
 
   async function list(_req: Request, res: Response) {
     const { params } = input(res, { params: ClipParams });

@@ -1,6 +1,6 @@
 import type { Request, Response } from 'express';
 import { CAN } from '../../shared/roles';
-import { ClipFrameParams, SnapBody } from '../../shared/schemas/marking';
+import { ClipFrameParams, SnapBody, SnapResult } from '../../shared/schemas/marking';
 import type { AppDeps } from '../app-deps';
 import { signedIn, teamRole } from '../auth/access';
 import { currentTeam, input } from '../http/input';
@@ -12,7 +12,7 @@ import { snapOnStoredFrame } from '../marking/frame-snap';
 export function frameSnapRoutes(api: RouteTable, { db, storage }: AppDeps) {
   api.post(
     '/api/teams/:teamId/clips/:clipId/frames/:frameNumber/snap',
-    'Refine a click to the projectile’s centroid on the stored frame',
+    { summary: 'Refine a click to the projectile’s centroid on the stored frame', response: SnapResult },
     signedIn,
     teamRole(CAN.mark),
     validate({ params: ClipFrameParams, body: SnapBody }),

@@ -2,7 +2,11 @@ import type { Request, Response } from 'express';
 import { CAN } from '../../shared/roles';
 import {
   MarkDeleteQuery,
+  MarkDeleteResult,
   MarkParams,
+  MarksImportResult,
+  MarksResponse,
+  MarkWriteResult,
   MarksExportQuery,
   MarksImportBody,
   MarkUpsertBody,
@@ -13,16 +17,17 @@ import { signedIn, teamRole } from '../auth/access';
 import { actorOf, currentTeam, currentUser, input } from '../http/input';
 import type { RouteTable } from '../http/route-table';
 import { validate } from '../http/validate';
+import { MARK_PUT_EXAMPLE } from '../http/api-examples';
 import { exportMarksCsv, importMarksCsv, putMark, removeMark, trackMarks } from '../marking/marks';
 
 /** Marks: one per (track, frame), saved as each is placed; the concurrency rules live in server/marking/marks.ts (docs/marking-api.md). */
 export function markRoutes(api: RouteTable, { db }: AppDeps) {
   const base = '/api/teams/:teamId/tracks/:trackId/marks';
-  api.get(base, 'Marks of a track with time and world position', signedIn, teamRole(CAN.read), validate({ params: TrackParams }), list);
+  api.get(base, { summary: 'Marks of a track with time and world position', response: MarksResponse }, signedIn, teamRole(CAN.read), validate({ params: TrackParams }), list);
   api.get(`${base}/export`, { summary: 'Marks of a track as CSV (frame,u_px,v_px or t_s,x_m,y_m)', produces: 'text/csv' }, signedIn, teamRole(CAN.read), validate({ params: TrackParams, query: MarksExportQuery }), exportCsv);
-  api.post(`${base}/import`, 'Import marks from CSV, all or nothing', signedIn, teamRole(CAN.mark), validate({ params: TrackParams, body: MarksImportBody }), importCsv);
-  api.put(`${base}/:frameNumber`, 'Place or move the mark on a frame (revision-checked)', signedIn, teamRole(CAN.mark), validate({ params: MarkParams, body: MarkUpsertBody }), put);
-  api.delete(`${base}/:frameNumber`, 'Delete the mark on a frame (revision-checked)', signedIn, teamRole(CAN.mark), validate({ params: MarkParams, query: MarkDeleteQuery }), remove);
+  api.post(`${base}/import`, { summary: 'Import marks from CSV, all or nothing', response: MarksImportResult }, signedIn, teamRole(CAN.mark), validate({ params: TrackParams, body: MarksImportBody }), importCsv);
+  api.put(`${base}/:frameNumber`, { summary: 'Place or move the mark on a frame (revision-checked)', response: MarkWriteResult, example: MARK_PUT_EXAMPLE }, signedIn, teamRole(CAN.mark), validate({ params: MarkParams, body: MarkUpsertBody }), put);
+  api.delete(`${base}/:frameNumber`, { summary: 'Delete the mark on a frame (revision-checked)', response: MarkDeleteResult }, signedIn, teamRole(CAN.mark), validate({ params: MarkParams, query: MarkDeleteQuery }), remove);
 
   async function list(_req: Request, res: Response) {
     const { params } = input(res, { params: TrackParams });

@@ -1,6 +1,6 @@
 import type { Request, Response } from 'express';
 import { CAN } from '../../shared/roles';
-import { ClipParams, MarkingDoneBody, Track, TrackCreateBody, TrackParams, TrackUpdateBody } from '../../shared/schemas/marking';
+import { ClipParams, MarkingDoneBody, Track, TrackCreateBody, TrackList, TrackParams, TrackUpdateBody } from '../../shared/schemas/marking';
 import type { AppDeps } from '../app-deps';
 import { signedIn, teamRole } from '../auth/access';
 import { actorOf, currentTeam, input } from '../http/input';
@@ -14,10 +14,10 @@ export function trackRoutes(api: RouteTable, deps: AppDeps) {
   const { db } = deps;
   const clipBase = '/api/teams/:teamId/clips/:clipId/tracks';
   const base = '/api/teams/:teamId/tracks/:trackId';
-  api.get(clipBase, 'Tracks of a clip, oldest first', signedIn, teamRole(CAN.read), validate({ params: ClipParams }), list);
-  api.post(clipBase, { summary: 'Start a track on a clip', status: 201 }, signedIn, teamRole(CAN.mark), validate({ params: ClipParams, body: TrackCreateBody }), create);
-  api.get(base, 'One track', signedIn, teamRole(CAN.read), validate({ params: TrackParams }), getOne);
-  api.patch(base, 'Rename a track or change its kind', signedIn, teamRole(CAN.mark), validate({ params: TrackParams, body: TrackUpdateBody }), update);
+  api.get(clipBase, { summary: 'Tracks of a clip, oldest first', response: TrackList }, signedIn, teamRole(CAN.read), validate({ params: ClipParams }), list);
+  api.post(clipBase, { summary: 'Start a track on a clip', status: 201, response: Track }, signedIn, teamRole(CAN.mark), validate({ params: ClipParams, body: TrackCreateBody }), create);
+  api.get(base, { summary: 'One track', response: Track }, signedIn, teamRole(CAN.read), validate({ params: TrackParams }), getOne);
+  api.patch(base, { summary: 'Rename a track or change its kind', response: Track }, signedIn, teamRole(CAN.mark), validate({ params: TrackParams, body: TrackUpdateBody }), update);
   api.post(`${base}/marking-done`, { summary: 'Hand the track to the engineers (done: true) or take it back (done: false); engineers are told', response: Track }, signedIn, teamRole(CAN.mark), validate({ params: TrackParams, body: MarkingDoneBody }), markingDone);
   api.delete(base, { summary: 'Delete a track and its marks', status: 204 }, signedIn, teamRole(CAN.mark), validate({ params: TrackParams }), remove);
 
