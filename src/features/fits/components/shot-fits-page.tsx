@@ -46,6 +46,8 @@ export function ShotFitsPage() {
                     size="sm"
                     busy={run.isPending && run.variables === t.id}
                     disabled={run.isPending || t.markCount < 5}
+                    // One button per track: the name says which track, so a screen reader's button list tells them apart.
+                    aria-label={`Run fit on ${t.name}`}
                     title={t.markCount < 5 ? 'A fit needs at least 5 marks' : undefined}
                     onClick={() => run.mutate(t.id, { onSuccess: (fit) => navigate(`/t/${teamId}/fits/${fit.id}`) })}
                   >
