@@ -45,6 +45,15 @@ async function join(request: APIRequestContext, baseUrl: string, teamName: strin
 
 const queueBox = (page: Page, title: string) => page.getByRole('group', { name: title, exact: true });
 
+/**
+ * The shot's fit page lists every projectile track with its own button: the
+ * workspace makes an empty "Projectile" track when the frame marker opens a clip
+ * with no track yet, so it usually sits beside the "Ball" track that holds the
+ * marks (its button off: too few marks). Pick the button of the track meant.
+ */
+const runFitButton = (page: Page, trackName: string) =>
+  page.getByRole('listitem').filter({ hasText: trackName }).getByRole('button', { name: `Run fit on ${trackName}`, exact: true });
+
 it('analyst → frame marker → engineer (mail, own fit not approvable, rejection) → second engineer approves', async () => {
   const baseUrl = inject('baseUrl');
   const suffix = `${Date.now().toString(36)}${Math.random().toString(36).slice(2, 6)}`;
@@ -132,7 +141,8 @@ it('analyst → frame marker → engineer (mail, own fit not approvable, rejecti
   await screenshot(devPage, 'hand-off-engineer-mail');
   await devPage.goto(`${baseUrl}/t/${teamId}`);
   await readyToFit.getByRole('link', { name: `${shot.label} · Ball` }).click();
-  await devPage.getByRole('button', { name: 'Run fit' }).click();
+  await devPage.waitForURL(new RegExp(`/shots/${clip.shotId}/fits$`));
+  await runFitButton(devPage, 'Ball').click();
   await devPage.getByRole('heading', { level: 1, name: /^Fit of/ }).waitFor({ timeout: 60_000 });
 
   // Separation of duties: the button is off and the page says why.
@@ -153,7 +163,7 @@ it('analyst → frame marker → engineer (mail, own fit not approvable, rejecti
 
   // ---- 5. the engineer runs the fit again; the other engineer approves it from their queue
   await devPage.goto(`${baseUrl}/t/${teamId}/shots/${clip.shotId}/fits`);
-  await devPage.getByRole('button', { name: 'Run fit' }).click();
+  await runFitButton(devPage, 'Ball').click();
   await devPage.getByRole('heading', { level: 1, name: /^Fit of/ }).waitFor({ timeout: 60_000 });
   const secondFitUrl = devPage.url();
   await sanaPage.goto(`${baseUrl}/t/${teamId}`);
