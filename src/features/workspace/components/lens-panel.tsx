@@ -6,9 +6,9 @@ import { SelectField } from '@/components/ui/select-field';
 import { useLensProfiles } from '@/api/lens-profiles/list-lens-profiles';
 import { ApiError } from '@/lib/api-client';
 import { formatNumber } from '@/lib/format';
-import type { LensProfile } from '@shared/schemas/lens-profiles';
 import type { Calibration } from '@shared/schemas/marking';
 import { lensInputOf } from '../editor/calibration-geometry';
+import { lensOfProfile, profileFitsFrame } from '../editor/lens-profile-choice';
 import type { Editor } from '../editor/editor-store';
 import type { LensDraft, Point } from '../editor/types';
 import { useEditor } from '../hooks/use-editor';
@@ -34,30 +34,6 @@ function sourceText(lens: LensDraft): string {
   if (lens.source === 'straight-lines') return `fitted to ${lens.straightLines?.length ?? 0} straight edges`;
   if (lens.source === 'profile') return `team lens profile “${lens.profile?.name ?? 'unnamed'}”`;
   return 'stated coefficients';
-}
-
-/**
- * The coefficients act on the radius over the half-diagonal, so a profile carries over to
- * frames of its shape (either orientation) and no other; the server refuses the rest (1 % as there).
- */
-function sameShape(p: LensProfile, frame: { width: number; height: number }): boolean {
-  const shape = (w: number, h: number) => Math.max(w, h) / Math.min(w, h);
-  return Math.abs(shape(p.frameWidthPx, p.frameHeightPx) / shape(frame.width, frame.height) - 1) <= 0.01;
-}
-
-function lensOfProfile(p: LensProfile, frame: { width: number; height: number }): LensDraft {
-  return {
-    model: 'brown-conrady-radial',
-    source: 'profile',
-    profile: { id: p.id, name: p.name },
-    ...p.coefficients,
-    residualRmsPx: null,
-    terms: null,
-    straightLines: null,
-    notes: p.cameraNote ? [p.cameraNote] : [],
-    frameWidthPx: frame.width,
-    frameHeightPx: frame.height,
-  };
 }
 
 /**
@@ -151,8 +127,8 @@ export function LensPanel({ editor, teamId, frameSize, saved, saveError }: LensP
           value={lens?.source === 'profile' ? (lens.profile?.id ?? '') : ''}
           options={profiles.data.map((p) => ({
             value: p.id,
-            label: sameShape(p, frameSize) ? `${p.name} (${p.frameWidthPx}×${p.frameHeightPx})` : `${p.name} — measured on ${p.frameWidthPx}×${p.frameHeightPx}, another frame shape`,
-            disabled: !sameShape(p, frameSize),
+            label: profileFitsFrame(p, frameSize) ? `${p.name} (${p.frameWidthPx}×${p.frameHeightPx})` : `${p.name} — measured on ${p.frameWidthPx}×${p.frameHeightPx}, another frame shape`,
+            disabled: !profileFitsFrame(p, frameSize),
           }))}
           onChange={(e) => {
             const p = profiles.data.find((x) => x.id === e.target.value);
