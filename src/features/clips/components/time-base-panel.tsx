@@ -9,6 +9,7 @@ import { KeyValueList } from '@/components/ui/key-value-list';
 import { TextField } from '@/components/ui/text-field';
 import { formatNumber, formatQuantity } from '@/lib/format';
 import { useUpdateClip } from '@/api/clips/update-clip';
+import { ExposureForm } from './exposure-form';
 
 /** Rates closer than this are the same rate written two ways (e.g. 29.97 vs 30000/1001). */
 const SAME_RATE_TOLERANCE = 0.005;
@@ -28,6 +29,7 @@ export function rateDiffers(clip: Pick<ClipView, 'containerFps' | 'captureFps'>)
  */
 export function TimeBasePanel({ teamId, clip, frames, canEdit }: { teamId: string; clip: ClipView; frames: ClipFrameView[] | undefined; canEdit: boolean }) {
   const [editing, setEditing] = useState(false);
+  const [editingExposure, setEditingExposure] = useState(false);
   const dropped = frames?.filter((f) => f.flag === 'dropped-before').length;
   const duplicates = frames?.filter((f) => f.flag === 'duplicate').length;
   const differs = rateDiffers(clip);
@@ -55,6 +57,11 @@ export function TimeBasePanel({ teamId, clip, frames, canEdit }: { teamId: strin
           { label: 'Frame rate', value: clip.variableFrameRate ? 'variable (times from timestamps)' : 'constant' },
           { label: 'Dropped-frame gaps', value: dropped ?? '—', numeric: true },
           { label: 'Duplicated frames', value: duplicates ?? '—', numeric: true },
+          { label: 'Shutter time', value: clip.shutterS === null ? 'not stated' : formatQuantity(clip.shutterS * 1000, 'ms', { digits: 3 }), numeric: true },
+          { label: 'Frame stamped at', value: `${clip.frameStamp} of the exposure` },
+          ...(clip.exposureShiftS !== 0
+            ? [{ label: 'Mark times moved by', value: `${clip.exposureShiftS > 0 ? '+' : '−'}${formatQuantity(Math.abs(clip.exposureShiftS) * 1000, 'ms', { digits: 3 })} (to mid-exposure)`, numeric: true }]
+            : []),
           { label: 'Video', value: `${clip.codec}, ${clip.frameWidth}×${clip.frameHeight}${clip.rotationDeg ? `, turned ${clip.rotationDeg}°` : ''}`, numeric: true },
         ]}
       />
@@ -67,14 +74,18 @@ export function TimeBasePanel({ teamId, clip, frames, canEdit }: { teamId: strin
           ))}
         </ul>
       )}
-      {canEdit && !editing && (
-        <div>
+      {canEdit && !editing && !editingExposure && (
+        <div className="flex flex-wrap gap-2">
           <Button size="sm" variant="ghost" onClick={() => setEditing(true)}>
             Change capture rate or range
+          </Button>
+          <Button size="sm" variant="ghost" onClick={() => setEditingExposure(true)}>
+            Set shutter time and frame stamp
           </Button>
         </div>
       )}
       {canEdit && editing && <ClipSettingsForm teamId={teamId} clip={clip} onDone={() => setEditing(false)} />}
+      {canEdit && editingExposure && <ExposureForm teamId={teamId} clip={clip} onDone={() => setEditingExposure(false)} />}
     </div>
   );
 }

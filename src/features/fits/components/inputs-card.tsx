@@ -24,6 +24,13 @@ export function InputsCard({ fit }: { fit: FitDetail }) {
           ...(how ? [{ label: 'How marked', value: how }] : []),
           { label: 'Muzzle', value: s.muzzle ? `x ${formatNumber(s.muzzle.xM, { decimals: 3 })} m, y ${formatNumber(s.muzzle.yM, { decimals: 3 })} m` : 'not marked' },
           { label: 'Frame rate', value: s.clip.frameRateHz ? `${s.clip.frameRateHz} fps` : '—', numeric: true },
+          ...(s.clip.shutterS != null
+            ? [{ label: 'Exposure', value: `${formatNumber(s.clip.shutterS * 1000, { decimals: 3 })} ms shutter, frames stamped at the ${s.clip.frameStamp ?? 'middle'} · mark times moved ${formatNumber((s.fitInput.exposureShiftS ?? 0) * 1000, { decimals: 3 })} ms to mid-exposure` }]
+            : []),
+          ...(s.shot.wind
+            ? [{ label: 'Wind', value: `${formatNumber(s.shot.wind.speedMps, { decimals: 1 })} m/s from ${formatNumber(s.shot.wind.fromDeg, { decimals: 0 })}° (0° headwind) · ${formatNumber(s.fitInput.windXMps ?? 0, { decimals: 2 })} m/s along the line of fire in the fit` }]
+            : []),
+          ...(s.shot.launchHeightM != null ? [{ label: 'Launch height', value: `${formatNumber(s.shot.launchHeightM, { decimals: 2 })} m`, numeric: true }] : []),
         ]}
       />
     </Card>

@@ -67,6 +67,9 @@ export function ShotDetailPage({ clipPanel }: ShotDetailPageProps) {
               { label: 'Station pressure', value: formatPressure(s.stationPressurePa), numeric: true },
               { label: 'Relative humidity', value: formatQuantity(s.relativeHumidityPct, '%', { decimals: 0 }), numeric: true },
               { label: 'Tape-measured range', value: formatQuantity(s.tapeRangeM, 'm', { decimals: 2 }), numeric: true },
+              { label: 'Launch height', value: formatQuantity(s.launchHeightM, 'm', { decimals: 2 }), numeric: true },
+              { label: 'Air density (stated)', value: s.airDensity ? `${formatQuantity(s.airDensity.densityKgM3, 'kg/m³', { decimals: 3 })}${s.airDensity.tolKgM3 !== null ? ` ± ${formatQuantity(s.airDensity.tolKgM3, 'kg/m³', { decimals: 3 })}` : ''}` : '—', numeric: true },
+              { label: 'Wind', value: s.wind ? `${formatQuantity(s.wind.speedMps, 'm/s', { decimals: 1 })} from ${formatQuantity(s.wind.fromDeg, '°', { decimals: 0 })} (0° headwind)` : '—' },
             ]}
           />
           {s.notes && <p className="mt-3 text-body whitespace-pre-line text-ink-soft">{s.notes}</p>}
