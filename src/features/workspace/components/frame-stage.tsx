@@ -14,7 +14,7 @@ import { useMarkNotes } from '../hooks/use-mark-notes';
 import { MarkNotesOverlay } from './mark-notes-overlay';
 import { MarksOverlay } from './marks-overlay';
 import { PreviewOverlay } from './preview-overlay';
-import { recordFrameDrawn } from './frame-timings';
+import { recordFrameDrawn, recordStepKey } from './frame-timings';
 
 const NO_FRAMES = new Set<number>();
 
@@ -136,6 +136,8 @@ export function FrameStage({ editor, frameCache, imageSize, transform, preview, 
       e.evt.preventDefault();
       return;
     }
+    // A plain click with the place tool marks and steps on: `npm run bench` times it to the next frame drawn.
+    if (activeTool === 'place' && e.evt.button === 0) recordStepKey(e.evt.timeStamp);
     editor.toolEvent({ type: 'pointer-down', point: screenToImage(view, p), button: e.evt.button });
   };
 

@@ -1,6 +1,7 @@
 // A small hook for `npm run bench` (scripts/bench-workspace.ts): when the
-// bench page sets window.__arcbenchFrameTimings, the keyboard handler notes
-// the keydown time and the frame layer notes when it drew that frame, then
+// bench page sets window.__arcbenchFrameTimings, the keyboard handler (a step
+// key) or the stage (a marking click) notes
+// the input time and the frame layer notes when it drew that frame, then
 // the next animation frame (the paint). Nothing is recorded otherwise.
 
 export interface FrameTimingSample {

@@ -1,4 +1,4 @@
-import { useMemo, useRef, useState } from 'react';
+import { useDeferredValue, useMemo, useRef, useState } from 'react';
 import { Badge } from '@/components/ui/badge';
 import { buttonClasses, Button } from '@/components/ui/button';
 import { Card } from '@/components/ui/card';
@@ -15,7 +15,16 @@ import { useEditor } from '../hooks/use-editor';
 import { apiMarkToEditor, type MarkSaving } from '../hooks/use-mark-saving';
 import { useWorldMarks, type WorldMark } from '../hooks/use-world-marks';
 
-const col = dataTableColumns<WorldMark>();
+/** A ledger row: the mark's time and place, and where it came from (the automatic marker and how sure it was). */
+interface LedgerRow extends WorldMark {
+  source: 'auto' | 'person';
+  confidence: number | null;
+  flagged: boolean;
+  reason: string | null;
+  offCurve: boolean;
+}
+
+const col = dataTableColumns<LedgerRow>();
 
 interface MarksLedgerProps {
   editor: Editor;
@@ -35,6 +44,26 @@ export function MarksLedger({ editor, teamId, transform, saving, threshold, offC
   const track = useEditor(editor, (s) => s.tracks.find((t) => t.id === activeTrackId));
   // Where each mark came from (the automatic marker and how sure it was), by frame.
   const provenance = useEditor(editor, (s) => (activeTrackId ? s.marksByTrack[activeTrackId] : undefined));
+
+  // Everything a row shows is in the row, so the columns never change: a click then
+  // updates one row instead of remounting every cell of the table.
+  const ledgerRows = useMemo(
+    () =>
+      rows.map((r): LedgerRow => {
+        const m = provenance?.[r.frameNumber];
+        return {
+          ...r,
+          source: m?.source === 'auto' ? 'auto' : 'person',
+          confidence: m?.source === 'auto' ? (m.confidence ?? null) : null,
+          flagged: !!m && needsReview(m, threshold),
+          reason: m?.lowConfidenceReason ?? null,
+          offCurve: offCurve.has(r.frameNumber),
+        };
+      }),
+    [rows, provenance, threshold, offCurve],
+  );
+  // The table follows a click at low priority, after the stage has drawn the next frame.
+  const shownRows = useDeferredValue(ledgerRows);
 
   const columns = useMemo(
     () =>
@@ -56,7 +85,7 @@ export function MarksLedger({ editor, teamId, transform, saving, threshold, offC
         col.accessor('snapped', {
           header: 'How',
           cell: (c) =>
-            provenance?.[c.row.original.frameNumber]?.source === 'auto' ? (
+            c.row.original.source === 'auto' ? (
               <Badge tone="neutral">auto</Badge>
             ) : c.getValue() ? (
               <Badge tone="fit">snapped</Badge>
@@ -68,22 +97,18 @@ export function MarksLedger({ editor, teamId, transform, saving, threshold, offC
           id: 'check',
           header: 'Confidence',
           cell: (c) => {
-            const m = provenance?.[c.row.original.frameNumber];
-            const flagged = !!m && needsReview(m, threshold);
-            const off = offCurve.has(c.row.original.frameNumber);
+            const r = c.row.original;
             return (
               <span className="flex flex-wrap items-center gap-1">
-                {m?.source === 'auto' && m.confidence !== null && m.confidence !== undefined && (
-                  <span className="tabular-nums">{Math.round(m.confidence * 100)}%</span>
-                )}
-                {flagged && <Badge tone="signal" title={m?.lowConfidenceReason ?? undefined}>{m?.lowConfidenceReason ? `check: ${m.lowConfidenceReason}` : 'check'}</Badge>}
-                {off && <Badge tone="alert">off curve</Badge>}
+                {r.confidence !== null && <span className="tabular-nums">{Math.round(r.confidence * 100)}%</span>}
+                {r.flagged && <Badge tone="signal" title={r.reason ?? undefined}>{r.reason ? `check: ${r.reason}` : 'check'}</Badge>}
+                {r.offCurve && <Badge tone="alert">off curve</Badge>}
               </span>
             );
           },
         }),
       ]),
-    [editor, provenance, threshold, offCurve],
+    [editor],
   );
 
   return (
@@ -96,7 +121,7 @@ export function MarksLedger({ editor, teamId, transform, saving, threshold, offC
         <DataTable
           caption="Marks ledger"
           columns={columns}
-          data={rows}
+          data={shownRows}
           getRowId={(r) => String(r.frameNumber)}
           dense
           filterPlaceholder={false}

@@ -34,6 +34,20 @@ describe('editor store', () => {
     expect(writes).toEqual([{ trackId: 'ball', frameNumber: 0, mark: s.marksByTrack.ball[0], previous: null }]);
   });
 
+  it('a marking click shows the next frame before it stores the mark (on the frame that was clicked)', () => {
+    const { editor } = loadedEditor();
+    const seen: { frameNumber: number; marked: boolean }[] = [];
+    editor.subscribe(() => {
+      const s = editor.getState();
+      seen.push({ frameNumber: s.frameNumber, marked: !!s.marksByTrack.ball?.[0] });
+    });
+    editor.toolEvent({ type: 'pointer-down', point: { u: 100, v: 50 }, button: 0 });
+    // The first change anyone hears of is the new frame, still without the mark.
+    expect(seen.find((x) => x.frameNumber !== 0 || x.marked)).toEqual({ frameNumber: 1, marked: false });
+    expect(seen.at(-1)).toEqual({ frameNumber: 1, marked: true });
+    expect(editor.getState().marksByTrack.ball[1]).toBeUndefined();
+  });
+
   it('uses the snapper and remembers that the mark was snapped', () => {
     const { editor } = loadedEditor({ snap: (_f, p) => ({ u: p.u + 0.4, v: p.v - 0.3 }) });
     editor.placeMark({ u: 10, v: 10 });

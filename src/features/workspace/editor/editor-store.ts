@@ -211,10 +211,15 @@ export function createEditor(options: EditorOptions = {}) {
   });
 
   const runEffects = (effects: ToolEffect[]) => {
-    for (const effect of effects) {
+    // A click that marks and steps on shows the next frame first (the person's
+    // eyes are already there), then stores the mark on the frame it was placed on.
+    const clickFrame = state.frameNumber;
+    const marksAndSteps = effects.some((e) => e.type === 'place-mark') && effects.some((e) => e.type === 'step');
+    const ordered = marksAndSteps ? [...effects.filter((e) => e.type === 'step'), ...effects.filter((e) => e.type !== 'step')] : effects;
+    for (const effect of ordered) {
       switch (effect.type) {
         case 'place-mark':
-          editor.placeMark(effect.point);
+          editor.placeMark(effect.point, { frameNumber: clickFrame });
           break;
         case 'move-mark':
           editor.moveMark(effect.trackId, effect.frameNumber, effect.to);
