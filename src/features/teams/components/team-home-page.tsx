@@ -1,4 +1,4 @@
-import type { ReactNode } from 'react';
+import { lazy, Suspense, type ReactNode } from 'react';
 import { Link } from 'react-router';
 import { CAN, ROLE_DUTIES, ROLE_LABELS, type Role } from '@shared/roles';
 import { Badge } from '@/components/ui/badge';
@@ -9,10 +9,12 @@ import { PageHeader } from '@/components/ui/page-header';
 import { useCurrentTeam } from '@/lib/use-current-team';
 import { useTeam } from '@/api/teams/get-team';
 import { useWorkQueues } from '@/api/work-queues/get-work-queues';
-import { PresetTrendsCard } from './preset-trends-card';
 import { RecentActivityCard } from './recent-activity-card';
 import { TeamRulesCard } from './team-rules-card';
 import { WorkQueuesCard } from './work-queues-card';
+
+// The charts library is most of this page's weight: it loads after the queues are on screen.
+const PresetTrendsCard = lazy(() => import('./preset-trends-card').then((m) => ({ default: m.PresetTrendsCard })));
 
 /** A shortcut on the team home; the router supplies the list (src/app/team-home-slots.ts). */
 export interface TeamHomeLink {
@@ -52,7 +54,11 @@ export function TeamHomePage({ links, panels }: TeamHomePageProps) {
           <FormError error={work.error} />
           {work.data && role !== 'viewer' && <WorkQueuesCard queues={work.data.queues} role={role} />}
           {work.data && <RecentActivityCard teamId={teamId} activity={work.data.activity} />}
-          {work.data && <PresetTrendsCard trends={work.data.trends} />}
+          {work.data && (
+            <Suspense fallback={null}>
+              <PresetTrendsCard trends={work.data.trends} />
+            </Suspense>
+          )}
           <Card title="What you can do here">
             {myLinks.length === 0 ? (
               <p className="text-body text-ink-soft">Nothing to start yet.</p>
