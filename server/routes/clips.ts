@@ -36,7 +36,7 @@ export function clipRoutes(api: RouteTable, deps: AppDeps) {
   api.get(shotClips, { summary: 'Clips of a shot, oldest first', response: z.array(ClipView) }, signedIn, teamRole(CAN.read), validate({ params: ShotClipParams }), listClips);
   api.post(
     shotClips,
-    { summary: 'Upload a clip (multipart: file, captureFps, optional inFrame/outFrame); extraction is queued', bodyType: 'multipart/form-data', status: 201, response: ClipView, example: CLIP_UPLOAD_EXAMPLE },
+    { summary: 'Upload a clip (multipart: file, captureFps, optional inFrame/outFrame, shutterS, frameStamp); extraction is queued', bodyType: 'multipart/form-data', status: 201, response: ClipView, example: CLIP_UPLOAD_EXAMPLE },
     signedIn,
     teamRole(CAN.editShots),
     requireShotOfTeam,
@@ -47,7 +47,7 @@ export function clipRoutes(api: RouteTable, deps: AppDeps) {
   api.get(clip, { summary: 'A clip with its time base, warnings and extraction status (poll while extracting)', response: ClipView }, signedIn, teamRole(CAN.read), validate({ params: ClipIdParams }), getClip);
   api.patch(
     clip,
-    { summary: 'Change the capture rate (times are recomputed) or the in/out range (frames are re-extracted)', response: ClipView },
+    { summary: 'Change the capture rate (times are recomputed), the in/out range (frames are re-extracted) or the exposure timing (shutter time, frame stamp)', response: ClipView },
     signedIn,
     teamRole(CAN.editShots),
     validate({ params: ClipIdParams, body: ClipPatchBody }),

@@ -12,11 +12,11 @@ import { createShot, deleteShot, getShot, listShots, updateShot } from '../recor
 
 /**
  * Shots: one firing each, with the conditions it was fired in, stored exactly
- * as given (SI; air density is derived from them later, never stored here).
+ * as given (SI; air density is derived from them later unless stated directly).
  */
 /** A worked example for the API reference (invented ids and names). */
 const SHOT_EXAMPLE = {
-  request: { seriesId: '3f1c0a52-7d4e-4b8a-9c61-2e5d8f0b7a14', label: 'OL-40 shot 7', chamberPressurePa: 600000, elevationDeg: 45, airTempC: 18.5, stationPressurePa: 101200, relativeHumidityPct: 55 },
+  request: { seriesId: '3f1c0a52-7d4e-4b8a-9c61-2e5d8f0b7a14', label: 'OL-40 shot 7', chamberPressurePa: 600000, elevationDeg: 45, airTempC: 18.5, stationPressurePa: 101200, relativeHumidityPct: 55, wind: { speedMps: 3, fromDeg: 200 }, launchHeightM: 1.1 },
   response: {
     id: '9a7e4c21-5b3d-4f60-8e12-7c4b9d0a3e58',
     seriesId: '3f1c0a52-7d4e-4b8a-9c61-2e5d8f0b7a14',
@@ -32,6 +32,9 @@ const SHOT_EXAMPLE = {
     stationPressurePa: 101200,
     relativeHumidityPct: 55,
     tapeRangeM: null,
+    wind: { speedMps: 3, fromDeg: 200 },
+    launchHeightM: 1.1,
+    airDensity: null,
     notes: null,
     createdAt: '2026-05-14T09:12:00.000Z',
     updatedAt: '2026-05-14T09:12:00.000Z',
