@@ -118,3 +118,87 @@ export const MARK_PUT_EXAMPLE = {
     created: true,
   },
 };
+
+const FIT_ID = 'b38f0e6a-94d2-4c1b-8a7f-2e65d10c9b43';
+const TRACK_ID = 'e5a21c7d-08b4-4f93-a6e2-3c9d7b150f68';
+const CALIBRATION_ID = CALIBRATE_EXAMPLE.response.id;
+const DEV = { id: '2a9f4e17-6c0b-4d58-9e31-b7c8a5d2f604', displayName: 'Dev Okafor' };
+const estimate = (value: number, stdErr: number) => ({ value, stdErr, ci95: [Math.round((value - 1.96 * stdErr) * 1e4) / 1e4, Math.round((value + 1.96 * stdErr) * 1e4) / 1e4] });
+
+/** A stored fit as the run answers it (abridged: the result and snapshot carry more fields than shown, see the schema). */
+const FIT_DETAIL = {
+  id: FIT_ID,
+  shotId: SHOT_ID,
+  trackId: TRACK_ID,
+  state: 'awaiting-review',
+  launchSpeedMps: 23.41,
+  launchAngleDeg: 44.62,
+  dragCoefficient: 0.47,
+  dragK_perM: 0.0112,
+  rmsResidualM: 0.0041,
+  dragVerdict: 'Drag resolved: the drag model fits clearly better than the drag-free parabola.',
+  inputsChanged: false,
+  createdBy: TOMAS,
+  createdAt: '2026-04-18T10:21:40.117Z',
+  reviewedBy: null,
+  reviewedAt: null,
+  teamId: TEAM_ID,
+  clipId: CLIP_ID,
+  calibrationId: CALIBRATION_ID,
+  calibrationVersion: 1,
+  marksRevision: 42,
+  inputHash: 'c1f6a0d94e7b28356fa1e0c9d7b4a3821f5e6d0c9b8a7f6e5d4c3b2a19087f6e',
+  reviewNote: null,
+  staleness: { inputsChanged: false, marksChanged: false, calibrationChanged: false, currentMarksRevision: 42, currentCalibrationVersion: 1, message: null },
+  shot: { id: SHOT_ID, label: 'OL-40 shot 7', seriesName: 'Wendlow Flats morning', launcherName: 'OL-40 line thrower', projectileName: 'Training head 250 g' },
+  result: {
+    model: 'quadratic-drag',
+    tRefS: 0.5,
+    x0M: estimate(1.001, 0.002),
+    y0M: estimate(0.6, 0.002),
+    launchSpeedMps: estimate(23.41, 0.16),
+    launchAngleDeg: estimate(44.62, 0.21),
+    dragK_perM: estimate(0.0112, 0.0014),
+    dragCoefficient: estimate(0.47, 0.06),
+    rmsResidualM: 0.0041,
+    dragResolved: true,
+    dragVerdict: 'Drag resolved: the drag model fits clearly better than the drag-free parabola.',
+    degreesOfFreedom: 37,
+    parameterNames: ['x0M', 'y0M', 'vx0Mps', 'vy0Mps', 'dragK_perM'],
+    correlation: [
+      [1, 0.1, -0.6, 0, 0.2],
+      [0.1, 1, 0, -0.6, 0.1],
+      [-0.6, 0, 1, 0.1, -0.7],
+      [0, -0.6, 0.1, 1, -0.3],
+      [0.2, 0.1, -0.7, -0.3, 1],
+    ],
+    residuals: [{ tS: 0.5, xResidualM: 0.0021, yResidualM: -0.0034, outlier: false }],
+    outlierCount: 0,
+    cautions: [],
+    iterations: 7,
+    converged: true,
+  },
+  snapshot: {
+    schemaVersion: 1,
+    marks: [{ frameNumber: 120, tS: 0.5, uPx: 640.5, vPx: 310, xM: 1.001, yM: 0.6 }],
+    fitInput: { marks: [{ tS: 0.5, xM: 1.001, yM: 0.6 }], massKg: 0.25, diameterM: 0.04, airDensityKgM3: 1.204 },
+  },
+  audit: [{ action: 'fit.run', actor: TOMAS, at: '2026-04-18T10:21:40.117Z', detail: { trackId: TRACK_ID } }],
+  sameInputsAs: null,
+};
+
+/** Running the fit of a marked track (no body); the answer is the stored fit, awaiting review. */
+export const FIT_RUN_EXAMPLE = { response: FIT_DETAIL };
+
+/** An engineer approves the fit (a rejection needs a note); the fit is then frozen. */
+export const FIT_REVIEW_EXAMPLE = {
+  request: { decision: 'approve', note: 'Residuals flat, Cd in the handbook range for a blunt head.' },
+  response: {
+    ...FIT_DETAIL,
+    state: 'approved',
+    reviewedBy: DEV,
+    reviewedAt: '2026-04-18T11:02:13.550Z',
+    reviewNote: 'Residuals flat, Cd in the handbook range for a blunt head.',
+    audit: [...FIT_DETAIL.audit, { action: 'fit.approve', actor: DEV, at: '2026-04-18T11:02:13.550Z', detail: { note: 'Residuals flat, Cd in the handbook range for a blunt head.' } }],
+  },
+};

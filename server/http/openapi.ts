@@ -23,7 +23,9 @@ function requestBody(spec: RouteSpec) {
     const required = (body.required ?? []) as string[];
     // OpenAPI 3.1 (§4.8.14.3): a binary part is a string with contentMediaType, sent as its own part.
     const schema = { ...body, type: 'object', properties: { file: { type: 'string', contentMediaType: 'application/octet-stream', description: 'The file itself' }, ...props }, required: ['file', ...required] };
-    return { required: true, content: { [type]: { schema, encoding: { file: { contentType: 'video/*, application/octet-stream' } } } } };
+    const media: Record<string, unknown> = { schema, encoding: { file: { contentType: 'video/*, application/octet-stream' } } };
+    if (spec.example?.request !== undefined) media.example = spec.example.request;
+    return { required: true, content: { [type]: media } };
   }
   const media: Record<string, unknown> = { schema: type === 'application/json' ? body : { type: 'string' } };
   if (spec.example?.request !== undefined) media.example = spec.example.request;
@@ -33,8 +35,8 @@ function requestBody(spec: RouteSpec) {
 function successResponse(spec: RouteSpec) {
   if ((spec.status ?? 200) === 204) return { description: 'Done; no body' };
   if (spec.produces) {
-    // A JSON download is still a JSON value on the wire; only text and binary downloads are strings.
-    const schema = spec.produces === 'application/json' ? { type: 'object' } : { type: 'string', contentMediaType: spec.produces };
+    // A JSON download is still a JSON value on the wire (described by its response schema when it has one); only text and binary downloads are strings.
+    const schema = spec.produces === 'application/json' ? (spec.response ? jsonSchema(spec.response, 'output') : { type: 'object' }) : { type: 'string', contentMediaType: spec.produces };
     return { description: 'Success', content: { [spec.produces]: { schema } } };
   }
   if (!spec.response) return { description: 'Success' };

@@ -2,6 +2,7 @@ import type { Request, Response } from 'express';
 import { CAN } from '../../shared/roles';
 import { TeamParams } from '../../shared/schemas/common';
 import { FitParams, FitReviewBody, ShotFitsParams, ShotOverviewQuery, TrackFitParams } from '../../shared/schemas/fits';
+import { FitDetailResponse, ReproduceReportResponse, ShotFitsResponse, ShotOverviewPageResponse } from '../../shared/schemas/fit-responses';
 import type { AppDeps } from '../app-deps';
 import { signedIn, teamRole } from '../auth/access';
 import { fitMarksCsv } from '../fits/export-csv';
@@ -12,6 +13,7 @@ import { shotOverview } from '../fits/shot-overview';
 import { actorOf, currentTeam, currentUser, input } from '../http/input';
 import type { RouteTable } from '../http/route-table';
 import { validate } from '../http/validate';
+import { FIT_REVIEW_EXAMPLE, FIT_RUN_EXAMPLE } from '../http/api-examples';
 
 /**
  * Fits: run on the server from a track's marks, stored with a snapshot of
@@ -21,14 +23,14 @@ import { validate } from '../http/validate';
 export function fitRoutes(api: RouteTable, deps: AppDeps) {
   const { db } = deps;
   const fit = '/api/teams/:teamId/fits/:fitId';
-  api.post('/api/teams/:teamId/tracks/:trackId/fits', { summary: 'Run the drag and drag-free fits of a track and store them with their inputs', status: 201 }, signedIn, teamRole(CAN.runFits), validate({ params: TrackFitParams }), runFit);
-  api.get('/api/teams/:teamId/shots/:shotId/fits', 'A shot’s fits, newest first, with its tracks', signedIn, teamRole(CAN.read), validate({ params: ShotFitsParams }), shotFitList);
-  api.get('/api/teams/:teamId/shot-overview', 'Team-wide shots with their latest fit: filtered, sorted and paged on the server', signedIn, teamRole(CAN.read), validate({ params: TeamParams, query: ShotOverviewQuery }), overview);
-  api.get(fit, 'One fit: result, input snapshot, state, staleness, review and audit trail', signedIn, teamRole(CAN.read), validate({ params: FitParams }), getFit);
-  api.post(`${fit}/reproduce`, 'Recompute a fit from its stored snapshot and say whether the numbers are identical', signedIn, teamRole(CAN.read), validate({ params: FitParams }), reproduce);
-  api.post(`${fit}/review`, 'Approve or reject a fit awaiting review (approved fits are frozen)', signedIn, teamRole(CAN.review), validate({ params: FitParams, body: FitReviewBody }), review);
+  api.post('/api/teams/:teamId/tracks/:trackId/fits', { summary: 'Run the drag and drag-free fits of a track and store them with their inputs', status: 201, response: FitDetailResponse, example: FIT_RUN_EXAMPLE }, signedIn, teamRole(CAN.runFits), validate({ params: TrackFitParams }), runFit);
+  api.get('/api/teams/:teamId/shots/:shotId/fits', { summary: 'A shot’s fits, newest first, with its tracks', response: ShotFitsResponse }, signedIn, teamRole(CAN.read), validate({ params: ShotFitsParams }), shotFitList);
+  api.get('/api/teams/:teamId/shot-overview', { summary: 'Team-wide shots with their latest fit: filtered, sorted and paged on the server', response: ShotOverviewPageResponse }, signedIn, teamRole(CAN.read), validate({ params: TeamParams, query: ShotOverviewQuery }), overview);
+  api.get(fit, { summary: 'One fit: result, input snapshot, state, staleness, review and audit trail', response: FitDetailResponse }, signedIn, teamRole(CAN.read), validate({ params: FitParams }), getFit);
+  api.post(`${fit}/reproduce`, { summary: 'Recompute a fit from its stored snapshot and say whether the numbers are identical', response: ReproduceReportResponse }, signedIn, teamRole(CAN.read), validate({ params: FitParams }), reproduce);
+  api.post(`${fit}/review`, { summary: 'Approve or reject a fit awaiting review (approved fits are frozen)', response: FitDetailResponse, example: FIT_REVIEW_EXAMPLE }, signedIn, teamRole(CAN.review), validate({ params: FitParams, body: FitReviewBody }), review);
   api.get(`${fit}/export.csv`, { summary: 'Marks with fitted positions and residuals', produces: 'text/csv' }, signedIn, teamRole(CAN.read), validate({ params: FitParams }), exportCsv);
-  api.get(`${fit}/export.json`, { summary: 'The whole fit as JSON (result and input snapshot)', produces: 'application/json' }, signedIn, teamRole(CAN.read), validate({ params: FitParams }), exportJson);
+  api.get(`${fit}/export.json`, { summary: 'The whole fit as JSON (result and input snapshot)', produces: 'application/json', response: FitDetailResponse }, signedIn, teamRole(CAN.read), validate({ params: FitParams }), exportJson);
   api.get(`${fit}/report.pdf`, { summary: 'Fit report with numbers, intervals, plots, inputs and safety caution', produces: 'application/pdf' }, signedIn, teamRole(CAN.read), validate({ params: FitParams }), reportPdf);
 
   /** The acting user in the team of the path, with the names fit mails and reports show. */

@@ -2,6 +2,16 @@ import { z } from 'zod';
 import type { FitInputSnapshot } from '../fits/snapshot';
 import type { FitShotResult } from '../physics/types';
 import { INT4_MAX, Uuid } from './common';
+import type {
+  FitAuditEntrySchema,
+  FitDetailResponse,
+  FitSummaryResponse,
+  ReproduceReportResponse,
+  ShotFitsResponse,
+  ShotOverviewPageResponse,
+  ShotOverviewRowResponse,
+  StalenessSchema,
+} from './fit-responses';
 
 // Fits: running a track's fit, reading it, signing it off, and the team's shot overview.
 
@@ -45,97 +55,12 @@ export const ShotOverviewQuery = z.object({
 });
 export type ShotOverviewQuery = z.input<typeof ShotOverviewQuery>;
 
-export interface PersonRef {
-  id: string;
-  displayName: string;
-}
-
-export interface Staleness {
-  /** True when the marks or the calibration moved on after the fit ran. */
-  inputsChanged: boolean;
-  marksChanged: boolean;
-  calibrationChanged: boolean;
-  currentMarksRevision: number | null;
-  currentCalibrationVersion: number | null;
-  message: string | null;
-}
-
-export interface FitAuditEntry {
-  action: string;
-  actor: PersonRef | null;
-  at: string;
-  detail: Record<string, unknown>;
-}
-
-export interface FitSummary {
-  id: string;
-  shotId: string;
-  trackId: string;
-  state: FitState;
-  launchSpeedMps: number;
-  launchAngleDeg: number;
-  dragCoefficient: number | null;
-  dragK_perM: number | null;
-  rmsResidualM: number;
-  dragVerdict: string;
-  inputsChanged: boolean;
-  createdBy: PersonRef | null;
-  createdAt: string;
-  reviewedBy: PersonRef | null;
-  reviewedAt: string | null;
-}
-
-export interface FitDetail extends FitSummary {
-  teamId: string;
-  clipId: string;
-  calibrationId: string;
-  calibrationVersion: number;
-  marksRevision: number;
-  inputHash: string;
-  reviewNote: string | null;
-  staleness: Staleness;
-  shot: { id: string; label: string; seriesName: string | null; launcherName: string | null; projectileName: string | null };
-  result: FitShotResult;
-  snapshot: FitInputSnapshot;
-  audit: FitAuditEntry[];
-  /** An earlier fit of this shot run on identical inputs (same input hash), or null. */
-  sameInputsAs: { id: string; number: number; state: FitState; createdAt: string } | null;
-}
-
-export interface ShotFits {
-  shot: { id: string; label: string; seriesName: string | null };
-  tracks: { id: string; name: string; kind: string; clipId: string; markCount: number }[];
-  fits: FitSummary[];
-}
-
-export interface ReproduceReport {
-  identical: boolean;
-  inputHashMatches: boolean;
-  /** Paths of result fields that differ, e.g. "launchSpeedMps.value". Empty when identical. */
-  differences: string[];
-}
-
-export interface ShotOverviewRow {
-  shotId: string;
-  label: string;
-  seriesId: string;
-  seriesName: string;
-  testDate: string;
-  launcherName: string | null;
-  projectileName: string | null;
-  createdAt: string;
-  status: OverviewStatus;
-  fitId: string | null;
-  launchSpeedMps: number | null;
-  dragCoefficient: number | null;
-  fitCount: number;
-  /** The shot's latest approved fit, which may be older than the latest fit; null when none is approved. */
-  approved: { fitId: string; launchSpeedMps: number; dragCoefficient: number | null } | null;
-}
-
-export interface ShotOverviewPage {
-  items: ShotOverviewRow[];
-  total: number;
-  page: number;
-  pageSize: number;
-}
+export type Staleness = z.infer<typeof StalenessSchema>;
+export type FitAuditEntry = z.infer<typeof FitAuditEntrySchema>;
+export type FitSummary = z.infer<typeof FitSummaryResponse>;
+/** result and snapshot keep their full types from shared/physics and shared/fits; the wire schema describes their headline fields. */
+export type FitDetail = Omit<z.infer<typeof FitDetailResponse>, 'result' | 'snapshot'> & { result: FitShotResult; snapshot: FitInputSnapshot };
+export type ShotFits = z.infer<typeof ShotFitsResponse>;
+export type ReproduceReport = z.infer<typeof ReproduceReportResponse>;
+export type ShotOverviewRow = z.infer<typeof ShotOverviewRowResponse>;
+export type ShotOverviewPage = z.infer<typeof ShotOverviewPageResponse>;
