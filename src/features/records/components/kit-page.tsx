@@ -15,6 +15,7 @@ import { useLaunchers } from '@/api/launchers/list-launchers';
 import { useProjectiles } from '@/api/projectiles/list-projectiles';
 import { LaunchSafetyNote } from './launch-safety-note';
 import { LauncherFormDialog, ProjectileFormDialog } from './kit-form-dialogs';
+import { LensProfilesCard } from './lens-profiles-card';
 
 const launcherCol = dataTableColumns<Launcher>();
 const projectileCol = dataTableColumns<Projectile>();
@@ -109,6 +110,7 @@ export function KitPage() {
           <DataTable caption="Projectiles" columns={projectileColumns} data={projectiles.data ?? []} getRowId={(p) => p.id} loading={projectiles.isLoading} empty="No projectiles yet." filterPlaceholder={false} />
         </div>
       </Card>
+      <LensProfilesCard />
       <LauncherFormDialog teamId={teamId} launcher={launcherEdit ?? null} open={launcherEdit !== undefined} onClose={() => setLauncherEdit(undefined)} />
       <ProjectileFormDialog teamId={teamId} projectile={projectileEdit ?? null} open={projectileEdit !== undefined} onClose={() => setProjectileEdit(undefined)} />
       <ConfirmDialog
