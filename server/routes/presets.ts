@@ -2,6 +2,19 @@ import type { Request, Response } from 'express';
 import { CAN } from '../../shared/roles';
 import { TeamParams } from '../../shared/schemas/common';
 import {
+  FitCandidateList,
+  FitPresetComparisonList,
+  ForecastResponseSchema,
+  KeepOutResponseSchema,
+  MeasuredVsForecastResponseSchema,
+  PoolPreviewSchema,
+  PresetDetailSchema,
+  PresetList,
+  PresetVersionDiffSchema,
+  PresetVersionSchema,
+  RecordedComparisons,
+} from '../../shared/schemas/preset-responses';
+import {
   FitComparisonsParams,
   ForecastBody,
   KeepOutQuery,
@@ -38,19 +51,19 @@ import { presetDetail, presetList } from '../presets/preset-store';
 export function presetRoutes(api: RouteTable, { db }: AppDeps) {
   const base = '/api/teams/:teamId/presets';
   const one = `${base}/:presetId`;
-  api.get(base, 'The team’s design presets with their latest version', signedIn, teamRole(CAN.read), validate({ params: TeamParams }), list);
-  api.post(base, { summary: 'Create a preset; version 1 starts from a handbook Cd and a stated efficiency assumption', status: 201 }, signedIn, teamRole(CAN.editPresets), validate({ params: TeamParams, body: PresetCreateBody }), create);
-  api.get(one, 'One preset with its launcher, projectile and every version with provenance and diffs', signedIn, teamRole(CAN.read), validate({ params: PresetParams }), getOne);
-  api.get(`${one}/candidates`, 'Approved fits of the preset’s launcher and projectile, with what each would contribute', signedIn, teamRole(CAN.read), validate({ params: PresetParams }), candidates);
-  api.post(`${one}/pool-preview`, 'Pool chosen approved fits without publishing: pooled values and heterogeneity', signedIn, teamRole(CAN.editPresets), validate({ params: PresetParams, body: PoolPreviewBody }), poolPreview);
-  api.post(`${one}/versions`, { summary: 'Publish a new version pooled from approved fits', status: 201 }, signedIn, teamRole(CAN.editPresets), validate({ params: PresetParams, body: PublishVersionBody }), publish);
-  api.get(`${one}/versions/:version`, 'One version, however old', signedIn, teamRole(CAN.read), validate({ params: PresetVersionParams }), getVersion);
-  api.get(`${one}/versions/:version/diff`, 'What changed from the previous version', signedIn, teamRole(CAN.read), validate({ params: PresetVersionParams }), getDiff);
-  api.post(`${one}/versions/:version/comparisons`, { summary: 'Record that approved fits were compared against this version', status: 201 }, signedIn, teamRole(CAN.review), validate({ params: PresetVersionParams, body: RecordComparisonsBody }), compare);
-  api.get(`${one}/keep-out`, 'Keep-out distance: worst-case range at maximum working pressure times the safety factor, beside the vacuum ceiling', signedIn, teamRole(CAN.read), validate({ params: PresetParams, query: KeepOutQuery }), keepOut);
-  api.get(`${one}/measured-vs-forecast`, 'Measured speed and tape range of the preset’s approved shots against its forecast', signedIn, teamRole(CAN.read), validate({ params: PresetParams, query: PresetVersionQuery }), measuredAgainstForecast);
-  api.post('/api/teams/:teamId/forecast', 'Forecast a shot from a preset version and the day’s conditions', signedIn, teamRole(CAN.read), validate({ params: TeamParams, body: ForecastBody }), forecast);
-  api.get('/api/teams/:teamId/fits/:fitId/preset-comparisons', 'Preset versions a fit went into or was compared against', signedIn, teamRole(CAN.read), validate({ params: FitComparisonsParams }), fitComparisons);
+  api.get(base, { summary: 'The team’s design presets with their latest version', response: PresetList }, signedIn, teamRole(CAN.read), validate({ params: TeamParams }), list);
+  api.post(base, { summary: 'Create a preset; version 1 starts from a handbook Cd and a stated efficiency assumption', status: 201, response: PresetDetailSchema }, signedIn, teamRole(CAN.editPresets), validate({ params: TeamParams, body: PresetCreateBody }), create);
+  api.get(one, { summary: 'One preset with its launcher, projectile and every version with provenance and diffs', response: PresetDetailSchema }, signedIn, teamRole(CAN.read), validate({ params: PresetParams }), getOne);
+  api.get(`${one}/candidates`, { summary: 'Approved fits of the preset’s launcher and projectile, with what each would contribute', response: FitCandidateList }, signedIn, teamRole(CAN.read), validate({ params: PresetParams }), candidates);
+  api.post(`${one}/pool-preview`, { summary: 'Pool chosen approved fits without publishing: pooled values and heterogeneity', response: PoolPreviewSchema }, signedIn, teamRole(CAN.editPresets), validate({ params: PresetParams, body: PoolPreviewBody }), poolPreview);
+  api.post(`${one}/versions`, { summary: 'Publish a new version pooled from approved fits', status: 201, response: PresetVersionSchema }, signedIn, teamRole(CAN.editPresets), validate({ params: PresetParams, body: PublishVersionBody }), publish);
+  api.get(`${one}/versions/:version`, { summary: 'One version, however old', response: PresetVersionSchema }, signedIn, teamRole(CAN.read), validate({ params: PresetVersionParams }), getVersion);
+  api.get(`${one}/versions/:version/diff`, { summary: 'What changed from the previous version', response: PresetVersionDiffSchema }, signedIn, teamRole(CAN.read), validate({ params: PresetVersionParams }), getDiff);
+  api.post(`${one}/versions/:version/comparisons`, { summary: 'Record that approved fits were compared against this version', status: 201, response: RecordedComparisons }, signedIn, teamRole(CAN.review), validate({ params: PresetVersionParams, body: RecordComparisonsBody }), compare);
+  api.get(`${one}/keep-out`, { summary: 'Keep-out distance: worst-case range at maximum working pressure times the safety factor, beside the vacuum ceiling', response: KeepOutResponseSchema }, signedIn, teamRole(CAN.read), validate({ params: PresetParams, query: KeepOutQuery }), keepOut);
+  api.get(`${one}/measured-vs-forecast`, { summary: 'Measured speed and tape range of the preset’s approved shots against its forecast', response: MeasuredVsForecastResponseSchema }, signedIn, teamRole(CAN.read), validate({ params: PresetParams, query: PresetVersionQuery }), measuredAgainstForecast);
+  api.post('/api/teams/:teamId/forecast', { summary: 'Forecast a shot from a preset version and the day’s conditions', response: ForecastResponseSchema }, signedIn, teamRole(CAN.read), validate({ params: TeamParams, body: ForecastBody }), forecast);
+  api.get('/api/teams/:teamId/fits/:fitId/preset-comparisons', { summary: 'Preset versions a fit went into or was compared against', response: FitPresetComparisonList }, signedIn, teamRole(CAN.read), validate({ params: FitComparisonsParams }), fitComparisons);
 
   async function list(_req: Request, res: Response) {
     res.json(await presetList(db, currentTeam(res).id));

@@ -1,5 +1,24 @@
 import { z } from 'zod';
 import { INT4_MAX, Uuid } from './common';
+import type {
+  BandSchema,
+  FitCandidateSchema,
+  FitPresetComparisonSchema,
+  ForecastResponseSchema,
+  KeepOutResponseSchema,
+  MeasuredVsForecastResponseSchema,
+  MeasuredVsForecastRowSchema,
+  PersonNameSchema,
+  PooledSummarySchema,
+  PoolPreviewSchema,
+  PresetDetailSchema,
+  PresetHeterogeneitySchema,
+  PresetSummarySchema,
+  PresetVersionDiffRowSchema,
+  PresetVersionDiffSchema,
+  PresetVersionSchema,
+  SweepRowSchema,
+} from './preset-responses';
 import { limitText } from '../fits/format';
 
 // Design presets, their versions, forecasts and keep-out distances. SI units in
@@ -84,202 +103,20 @@ export const KeepOutQuery = PresetVersionQuery.extend({
 
 // ── Response shapes ─────────────────────────────────────────────────────────
 
-export interface PooledSummary {
-  value: number;
-  stdErr: number;
-  stdErrFixed: number;
-  count: number;
-  cochranQ: number;
-  degreesOfFreedom: number;
-  iSquared: number;
-  pValue: number | null;
-  birgeRatio: number | null;
-  disagree: boolean;
-  verdict: string;
-}
-
-export interface PresetHeterogeneity {
-  dragCoefficient: PooledSummary | null;
-  efficiency: PooledSummary | null;
-}
-
-export interface PersonName {
-  id: string;
-  displayName: string;
-}
-
-export interface PresetVersionDiffRow {
-  field: string;
-  label: string;
-  before: number | string | null;
-  after: number | string | null;
-  /** after − before for numbers. */
-  change: number | null;
-  relativeChange: number | null;
-}
-
-export interface PresetVersionDiff {
-  fromVersion: number | null;
-  toVersion: number;
-  rows: PresetVersionDiffRow[];
-  fitsAdded: string[];
-  fitsRemoved: string[];
-}
-
-export interface PresetVersion {
-  id: string;
-  version: number;
-  dragCoefficient: number;
-  dragCoefficientStd: number;
-  efficiency: number;
-  efficiencyStd: number;
-  launcherModel: PresetLauncherModel;
-  dragSource: string;
-  efficiencySource: string;
-  pooledFitIds: string[];
-  heterogeneity: PresetHeterogeneity | null;
-  keepOutSafetyFactor: number;
-  note: string;
-  publishedBy: PersonName | null;
-  publishedAt: string;
-  diff: PresetVersionDiff;
-}
-
-export interface PresetSummary {
-  id: string;
-  name: string;
-  launcher: { id: string; name: string };
-  projectile: { id: string; name: string };
-  pressureMinPa: number;
-  pressureMaxPa: number;
-  createdAt: string;
-  latest: Omit<PresetVersion, 'diff'> | null;
-  versionCount: number;
-}
-
-export interface PresetDetail extends PresetSummary {
-  launcherRecord: {
-    boreM: number | null;
-    barrelLengthM: number | null;
-    chamberVolumeM3: number | null;
-    maxWorkingPressurePa: number | null;
-    valveType: string | null;
-  };
-  projectileRecord: { massKg: number; diameterM: number; shape: string | null; referenceAreaM2: number | null };
-  versions: PresetVersion[];
-}
-
-export interface FitCandidate {
-  fitId: string;
-  shotId: string;
-  shotLabel: string;
-  reviewedAt: string | null;
-  chamberPressurePa: number | null;
-  dragCoefficient: { value: number; stdErr: number } | null;
-  efficiency: { value: number; stdErr: number; measuredSpeedMps: number; modelSpeedMps: number } | null;
-  /** Why a number could not be taken from this fit. */
-  notes: string[];
-  usable: boolean;
-}
-
-export interface PoolPreview {
-  dragCoefficient: PooledSummary;
-  efficiency: PooledSummary | null;
-  fitIds: string[];
-  notes: string[];
-}
-
-export interface Band {
-  low: number;
-  median: number;
-  high: number;
-}
-
-export interface SweepRow {
-  elevationDeg: number;
-  rangeM: number | null;
-  apexHeightM: number;
-  timeOfFlightS: number | null;
-  impactSpeedMps: number | null;
-  vacuumRangeM: number | null;
-}
-
-export interface ForecastResponse {
-  preset: { id: string; name: string };
-  version: Pick<PresetVersion, 'version' | 'dragCoefficient' | 'dragCoefficientStd' | 'efficiency' | 'efficiencyStd' | 'launcherModel'>;
-  air: { densityKgM3: number; source: string };
-  inputs: z.output<typeof ForecastBody>;
-  modelSpeedMps: number;
-  muzzleSpeedMps: number;
-  dragK_perM: number;
-  withDrag: {
-    reachesTarget: boolean;
-    rangeM: number | null;
-    apexHeightM: number;
-    timeOfFlightS: number | null;
-    impactSpeedMps: number | null;
-    impactAngleDeg: number | null;
-  };
-  vacuum: { rangeM: number | null; apexHeightM: number; timeOfFlightS: number | null };
-  bestElevation: { angleDeg: number; rangeM: number; vacuumAngleDeg: 45; vacuumRangeM: number };
-  trajectories: { drag: { xM: number; yM: number }[]; vacuum: { xM: number; yM: number }[] };
-  sweep: SweepRow[];
-  band: {
-    method: string;
-    samples: number;
-    seed: number;
-    muzzleSpeedMps: Band;
-    rangeM: Band | null;
-    apexHeightM: Band;
-    timeOfFlightS: Band | null;
-  };
-  cautions: string[];
-}
-
-export interface KeepOutResponse {
-  presetId: string;
-  version: number;
-  maxWorkingPressurePa: number;
-  modelSpeedMps: number;
-  efficiencyUpper: number;
-  speedUpperMps: number;
-  dragCoefficientLower: number;
-  air: { densityKgM3: number; source: string };
-  bestElevationDeg: number;
-  maxRangeM: number;
-  safetyFactor: number;
-  keepOutM: number;
-  vacuumCeilingM: number;
-  vacuumAtUpperSpeedM: number;
-  method: string;
-  cautions: string[];
-}
-
-export interface MeasuredVsForecastRow {
-  fitId: string;
-  shotId: string;
-  shotLabel: string;
-  chamberPressurePa: number | null;
-  elevationDeg: number | null;
-  measuredSpeedMps: number;
-  measuredSpeedStdErr: number;
-  measuredFrom: 'muzzle' | 'first mark';
-  forecastSpeedMps: number | null;
-  tapeRangeM: number | null;
-  forecastRangeM: number | null;
-  note: string | null;
-}
-
-export interface MeasuredVsForecastResponse {
-  presetId: string;
-  version: number;
-  rows: MeasuredVsForecastRow[];
-}
-
-export interface FitPresetComparison {
-  presetId: string;
-  presetName: string;
-  version: number;
-  role: 'pooled' | 'compared';
-  comparedAt: string;
-}
+export type PooledSummary = z.infer<typeof PooledSummarySchema>;
+export type PresetHeterogeneity = z.infer<typeof PresetHeterogeneitySchema>;
+export type PersonName = z.infer<typeof PersonNameSchema>;
+export type PresetVersionDiffRow = z.infer<typeof PresetVersionDiffRowSchema>;
+export type PresetVersionDiff = z.infer<typeof PresetVersionDiffSchema>;
+export type PresetVersion = z.infer<typeof PresetVersionSchema>;
+export type PresetSummary = z.infer<typeof PresetSummarySchema>;
+export type PresetDetail = z.infer<typeof PresetDetailSchema>;
+export type FitCandidate = z.infer<typeof FitCandidateSchema>;
+export type PoolPreview = z.infer<typeof PoolPreviewSchema>;
+export type Band = z.infer<typeof BandSchema>;
+export type SweepRow = z.infer<typeof SweepRowSchema>;
+export type ForecastResponse = z.infer<typeof ForecastResponseSchema>;
+export type KeepOutResponse = z.infer<typeof KeepOutResponseSchema>;
+export type MeasuredVsForecastRow = z.infer<typeof MeasuredVsForecastRowSchema>;
+export type MeasuredVsForecastResponse = z.infer<typeof MeasuredVsForecastResponseSchema>;
+export type FitPresetComparison = z.infer<typeof FitPresetComparisonSchema>;
