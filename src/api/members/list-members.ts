@@ -7,7 +7,10 @@ export function fetchMembers(teamId: string): Promise<Member[]> {
   return apiGet<Member[]>(`/api/teams/${teamId}/members`);
 }
 
-export const membersQueryOptions = (teamId: string) => queryOptions({ queryKey: memberKeys.all(teamId), queryFn: () => fetchMembers(teamId) });
+// People join by following a link in their own browser, which no mutation here knows
+// about: the list asks again each time it is shown, so a newcomer is there at once.
+export const membersQueryOptions = (teamId: string) =>
+  queryOptions({ queryKey: memberKeys.all(teamId), queryFn: () => fetchMembers(teamId), refetchOnMount: 'always' });
 
 export function useMembers(teamId: string) {
   return useQuery(membersQueryOptions(teamId));
