@@ -22,7 +22,7 @@ const ANALYST_ID = SIGN_IN_EXAMPLE.response.id;
 
 /** Multipart fields beside the file part; the answer is the clip, queued for extraction. */
 export const CLIP_UPLOAD_EXAMPLE = {
-  request: { file: '(the clip’s bytes: shot-07.mp4)', captureFps: '240' },
+  request: { file: '(the clip’s bytes: shot-07.mp4)', captureFps: 240 },
   response: {
     id: CLIP_ID,
     teamId: TEAM_ID,
@@ -83,6 +83,7 @@ export const CALIBRATE_EXAMPLE = {
     plane: null,
     rollDeg: 0,
     rollStdUncertaintyDeg: 0.037,
+    levelUncertainty: { endpointSigmaPx: 0.5 },
     lens: null,
     planeOffset: null,
     pixelsPerMetre: 500,

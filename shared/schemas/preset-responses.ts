@@ -113,6 +113,7 @@ export const PoolPreviewSchema = z.object({
 
 /** What POST …/versions/:version/comparisons recorded. */
 export const RecordedComparisons = z.object({ version: z.number().int(), fitIds: z.array(Uuid) });
+export type RecordedComparisons = z.infer<typeof RecordedComparisons>;
 
 export const BandSchema = z.object({ low: z.number(), median: z.number(), high: z.number() });
 

@@ -1,12 +1,13 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
+import type { RecordedComparisons } from '@shared/schemas/preset-responses';
 import { apiPost } from '@/lib/api-client';
 import { presetPath } from '@/api/api-paths';
 import { invalidateAll } from '@/api/invalidate';
 import { fitKeys, presetKeys } from '@/api/query-keys';
 
 /** Stores that these fits were checked against this version, so each fit remembers it. */
-export function recordComparisons(teamId: string, presetId: string, version: number, fitIds: string[]): Promise<{ version: number; fitIds: string[] }> {
-  return apiPost(presetPath(teamId, presetId, `/versions/${version}/comparisons`), { fitIds });
+export function recordComparisons(teamId: string, presetId: string, version: number, fitIds: string[]): Promise<RecordedComparisons> {
+  return apiPost<RecordedComparisons>(presetPath(teamId, presetId, `/versions/${version}/comparisons`), { fitIds });
 }
 
 export function useRecordComparisons(teamId: string, presetId: string) {
