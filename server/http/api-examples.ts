@@ -83,7 +83,6 @@ export const CALIBRATE_EXAMPLE = {
     plane: null,
     rollDeg: 0,
     rollStdUncertaintyDeg: 0.037,
-    levelUncertainty: { endpointSigmaPx: 0.5 },
     lens: null,
     planeOffset: null,
     pixelsPerMetre: 500,

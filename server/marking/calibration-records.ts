@@ -106,6 +106,12 @@ export function calibrationValues(
   };
 }
 
+/** The stored level uncertainty of the level in use; null where the version predates the columns. */
+function levelUncertaintyView(row: CalibrationRow): Calibration['levelUncertainty'] {
+  if (row.levelKind === 'line') return row.levelEndpointSigmaPx !== null ? { endpointSigmaPx: row.levelEndpointSigmaPx } : null;
+  return row.rollTolDeg !== null ? { rollTolDeg: row.rollTolDeg } : null;
+}
+
 export function calibrationView(row: CalibrationRow, creatorName: string | null): Calibration {
   const g = calibrationGeometryOf(row);
   return {
@@ -119,6 +125,7 @@ export function calibrationView(row: CalibrationRow, creatorName: string | null)
     plane: row.planeCorrection,
     rollDeg: row.rollDeg,
     rollStdUncertaintyDeg: (row.rollStdUncertaintyRad * 180) / Math.PI,
+    levelUncertainty: levelUncertaintyView(row),
     lens: row.lens,
     planeOffset: row.planeOffset ? { ...row.planeOffset, ...planeOffsetView(row.planeOffset) } : null,
     pixelsPerMetre: row.pixelsPerMetre,

@@ -118,6 +118,11 @@ export const Calibration = z.object({
   rollDeg: z.number(),
   /** Its standard uncertainty, degrees (level-line clicks through the corrections, or the stated tolerance). */
   rollStdUncertaintyDeg: z.number(),
+  /**
+   * The level uncertainty as stated and stored, defaults filled in: a level line's click σ (px)
+   * or a stated roll's ± tolerance (°), whichever the level is. Null on versions saved before it was stored.
+   */
+  levelUncertainty: LevelUncertaintyInput.nullable(),
   /** The lens correction in use, with its coefficients' uncertainties and the straightness residual; null: an ideal lens. */
   lens: LensCorrection.nullable(),
   /** The scale reference's offset from the flight plane; factor = (D − δ)/D multiplies the reference's pixels per metre. Null: none stated. */

@@ -2,6 +2,7 @@
 // stated), scale reference off the flight plane, level uncertainty. Bad input
 // is a plain 400 problem+json on the field at fault and stores nothing.
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { CLICK_SIGMA_PX } from '../../shared/defaults';
 import { distort, lensModelForFrame } from '../../shared/geometry/lens-distortion';
 import type { PixelPoint } from '../../shared/geometry/points';
 import { DEMO_PASSWORD, demoPerson } from '../../server/seed/demo-people';
@@ -91,6 +92,28 @@ describe('lens correction in the calibration', () => {
     expect(line.body.rollStdUncertaintyDeg).toBeCloseTo((Math.SQRT2 * 0.5 / 400) * (180 / Math.PI), 9);
     const stated = await analyst.post(calibrationsOf(clipId)).send({ ...SIMPLE_CALIBRATION, levelUncertainty: { rollTolDeg: 0.5 } });
     expect(stated.body.rollStdUncertaintyDeg).toBeCloseTo(0.5 / Math.sqrt(3), 12);
+  });
+
+  it('echoes the stated level uncertainty as stored, defaults filled in, in the answer and the version list', async () => {
+    const clipId = await createMarkingClip(t, analyst, teamId);
+    const line = await analyst.post(calibrationsOf(clipId)).send({
+      ...SIMPLE_CALIBRATION, level: { kind: 'line', p1: { u: 100, v: 400 }, p2: { u: 500, v: 404 } }, levelUncertainty: { endpointSigmaPx: 0.8 },
+    });
+    expect(line.status, JSON.stringify(line.body)).toBe(201);
+    expect(line.body.levelUncertainty).toEqual({ endpointSigmaPx: 0.8 });
+    // A tolerance meant for a stated roll says nothing about a line's clicks: the line keeps the usual click σ.
+    const lineDefault = await analyst.post(calibrationsOf(clipId)).send({
+      ...SIMPLE_CALIBRATION, level: { kind: 'line', p1: { u: 100, v: 400 }, p2: { u: 500, v: 404 } }, levelUncertainty: { rollTolDeg: 2 },
+    });
+    expect(lineDefault.body.levelUncertainty).toEqual({ endpointSigmaPx: CLICK_SIGMA_PX });
+    const stated = await analyst.post(calibrationsOf(clipId)).send({ ...SIMPLE_CALIBRATION, levelUncertainty: { rollTolDeg: 0.25 } });
+    expect(stated.body.levelUncertainty).toEqual({ rollTolDeg: 0.25 });
+    const none = await analyst.post(calibrationsOf(clipId)).send(SIMPLE_CALIBRATION);
+    expect(none.body.levelUncertainty).toEqual({ rollTolDeg: 0 });
+    const listed = await analyst.get(calibrationsOf(clipId));
+    expect(listed.body.calibrations.map((c: { levelUncertainty: unknown }) => c.levelUncertainty)).toEqual([
+      { rollTolDeg: 0 }, { rollTolDeg: 0.25 }, { endpointSigmaPx: CLICK_SIGMA_PX }, { endpointSigmaPx: 0.8 },
+    ]);
   });
 });
 

@@ -1,4 +1,5 @@
 import { describe, expect, it } from 'vitest';
+import { CLICK_SIGMA_PX } from '@shared/defaults';
 import { buildCalibrationTransform } from '@shared/geometry/calibration-transform';
 import type { Calibration } from '@shared/schemas/marking';
 import { calibrationToDraft, draftToCreateBody, draftToGeometry, sameDraft, transformOfDraft } from './calibration-geometry';
@@ -69,21 +70,25 @@ describe('calibration draft', () => {
     expect(sameDraft(draft, { ...draft, lens: stated })).toBe(false);
   });
 
-  it('reads the typed level uncertainty back from the saved roll uncertainty', () => {
+  it('takes the level uncertainty the server stored, not a value reconstructed from the roll uncertainty', () => {
     const level = { kind: 'line' as const, p1: { u: 100, v: 400 }, p2: { u: 500, v: 404 } };
     const g = draftToGeometry({ ...draft, level, lens: stated, levelUncertainty: { endpointSigmaPx: 0.8 } })!;
     const t = buildCalibrationTransform(g);
     const saved = (over: Partial<Calibration>): Calibration => ({
       id: '00000000-0000-4000-8000-000000000001', clipId: '00000000-0000-4000-8000-000000000002', version: 1,
       scale: g.scale, origin: g.origin, level, downrange: 'right', plane: null, rollDeg: t.rollDeg,
-      rollStdUncertaintyDeg: (t.rollStdUncertaintyRad * 180) / Math.PI, lens: stated, planeOffset: null,
+      rollStdUncertaintyDeg: (t.rollStdUncertaintyRad * 180) / Math.PI, levelUncertainty: { endpointSigmaPx: 0.8 }, lens: stated, planeOffset: null,
       pixelsPerMetre: t.pixelsPerMetre, scaleRelUncertainty: t.scaleRelUncertainty, note: null, createdBy: null, createdAt: '2026-04-18T10:00:00Z',
       ...over,
     });
     expect(calibrationToDraft(saved({})).levelUncertainty).toEqual({ endpointSigmaPx: 0.8 });
-    // A stated roll ± a: u = a/√3 (GUM §4.3.7), so a = u·√3.
-    const angle = calibrationToDraft(saved({ level: { kind: 'angle', rollDeg: 1 }, rollStdUncertaintyDeg: 0.5 / Math.sqrt(3) }));
-    expect(angle.levelUncertainty).toEqual({ rollTolDeg: 0.5 });
     expect(sameDraft({ ...draft, level, lens: stated, levelUncertainty: { endpointSigmaPx: 0.8 } }, calibrationToDraft(saved({})))).toBe(true);
+    // The stored tolerance comes through as typed even where the roll uncertainty says otherwise (a stated ± a gives u = a/√3, GUM §4.3.7).
+    const angle = calibrationToDraft(saved({ level: { kind: 'angle', rollDeg: 1 }, rollStdUncertaintyDeg: 0.5 / Math.sqrt(3), levelUncertainty: { rollTolDeg: 0.7 } }));
+    expect(angle.levelUncertainty).toEqual({ rollTolDeg: 0.7 });
+    // A version saved before the input was stored: the draft states none, which means the defaults.
+    const older = calibrationToDraft(saved({ levelUncertainty: null }));
+    expect(older.levelUncertainty).toBeNull();
+    expect(sameDraft(older, { ...older, levelUncertainty: { endpointSigmaPx: CLICK_SIGMA_PX } })).toBe(true);
   });
 });

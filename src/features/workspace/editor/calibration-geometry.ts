@@ -3,10 +3,9 @@
 // client shows exactly the world coordinates the server stores.
 import { CLICK_SIGMA_PX } from '@shared/defaults';
 import { buildCalibrationTransform, type CalibrationGeometry, type CalibrationTransform } from '@shared/geometry/calibration-transform';
-import { DEG_PER_RAD } from '@shared/geometry/roll-uncertainty';
 import type { LensInput } from '@shared/schemas/camera';
 import type { Calibration, CalibrationCreateBody } from '@shared/schemas/marking';
-import type { CalibrationDraft, LensDraft, LevelUncertaintyDraft } from './types';
+import type { CalibrationDraft, LensDraft } from './types';
 
 /** A draft becomes usable once it has a scale and an origin; without a level line the camera is taken as level. */
 export function draftToGeometry(draft: CalibrationDraft): CalibrationGeometry | null {
@@ -76,37 +75,12 @@ export function calibrationToDraft(c: Calibration): CalibrationDraft {
           referenceOffsetTolM: c.planeOffset.referenceOffsetTolM,
         }
       : null,
-    levelUncertainty: levelUncertaintyOf(c),
+    levelUncertainty: c.levelUncertainty,
   };
 }
 
-/** Six significant figures: enough for a typed σ or tolerance, and it hides the rounding of the way back. */
+/** Six significant figures: enough for a typed σ or tolerance, so drafts compare equal however the number was typed. */
 const typed = (x: number) => Number(x.toPrecision(6));
-
-/**
- * The calibration answer carries the roll's standard uncertainty, not the
- * typed input behind it; both are linear in each other, so the input is read
- * back: a stated roll's tolerance is u·√3 (GUM §4.3.7), a level line's click σ
- * is u divided by the u that a 1 px click gives through the same corrections.
- */
-function levelUncertaintyOf(c: Calibration): LevelUncertaintyDraft | null {
-  if (c.level.kind === 'angle') return { rollTolDeg: typed(c.rollStdUncertaintyDeg * Math.sqrt(3)) };
-  try {
-    const perPx = buildCalibrationTransform({
-      scale: c.scale,
-      origin: c.origin,
-      level: c.level,
-      downrange: c.downrange,
-      plane: c.plane,
-      lens: c.lens,
-      planeOffset: c.planeOffset,
-      levelUncertainty: { endpointSigmaPx: 1 },
-    }).rollStdUncertaintyRad;
-    return perPx > 0 ? { endpointSigmaPx: typed(c.rollStdUncertaintyDeg / DEG_PER_RAD / perPx) } : null;
-  } catch {
-    return null;
-  }
-}
 
 /** The level uncertainty a draft stands for, defaults filled in (a line: the usual click σ; a stated roll: ± 0). */
 export function effectiveLevelUncertainty(draft: CalibrationDraft): { endpointSigmaPx: number } | { rollTolDeg: number } {
