@@ -83,6 +83,7 @@ export const CALIBRATE_EXAMPLE = {
     plane: null,
     rollDeg: 0,
     rollStdUncertaintyDeg: 0.037,
+    levelUncertainty: { endpointSigmaPx: 0.5 },
     lens: null,
     planeOffset: null,
     pixelsPerMetre: 500,
