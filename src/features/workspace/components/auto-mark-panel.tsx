@@ -24,7 +24,7 @@ interface AutoMarkPanelProps {
 export function AutoMarkPanel({ teamId, editor, auto, threshold, canSetThreshold }: AutoMarkPanelProps) {
   // The review pass follows the shown frame; kept here so stepping re-renders this panel, not the page.
   const review = useReviewPass(editor, threshold);
-  useAutoMarkKeys(auto, review);
+  useAutoMarkKeys(auto, review, editor);
   const run = auto.run;
   const toCheck = review.frames.length;
   return (
