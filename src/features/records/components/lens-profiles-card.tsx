@@ -62,7 +62,7 @@ export function LensProfilesCard() {
   return (
     <Card
       title="Lens profiles"
-      subtitle="Radial distortion k1, k2 on the radius normalised by the frame’s half-diagonal. A calibration that names a profile keeps a copy of its numbers."
+      subtitle="Brown–Conrady radial coefficients k1, k2 on the radius normalised by the frame’s half-diagonal, as the workspace’s straight-edge fit reports them. A calibration that names a profile keeps a copy of its numbers."
       flush
       actions={canEdit && <Button size="sm" variant="primary" onClick={() => setEditing(null)}>New lens profile</Button>}
     >
