@@ -5,7 +5,7 @@
 import type { Page } from 'playwright-core';
 import type { Browser } from 'playwright-core';
 import { afterAll, beforeAll, expect, inject, it } from 'vitest';
-import { DEMO_PASSWORD, demoPerson } from '../../server/seed/demo-people';
+import { DEMO_PASSWORD, DEMO_TEAM, demoPerson } from '../../server/seed/demo-people';
 import { DEMO_PRESET_NAMES } from '../../server/seed/demo-presets';
 import { launchBrowser, screenshot, signIn } from '../support/browser';
 
@@ -32,15 +32,19 @@ async function readForecast(page: Page, url: string) {
   };
 }
 
-// Skipped for now: this test broke in the session's last integration run (team home, demo renames and publish/role confirmations all changed) and there was no time left to repair it; see the closing note of issues 10-17.
-it.skip('publishing a version from approved demo fits changes the forecast', async () => {
+it('publishing a version from approved demo fits changes the forecast', async () => {
   const context = await browser.newContext({ viewport: { width: 1400, height: 1100 } });
   const page = await context.newPage();
   await signIn(page, inject('baseUrl'), demoPerson('engineer').email, DEMO_PASSWORD);
   await page.waitForURL(/\/t\/[0-9a-f-]{36}/);
-  const teamId = /\/t\/([0-9a-f-]{36})/.exec(page.url())![1];
+  // Sign-in opens the first of the engineer's teams by name, and other browser tests add
+  // the demo people to teams of their own: open the demo team explicitly.
+  const me = (await (await page.request.get(`${inject('baseUrl')}/api/auth/me`)).json()) as { teams: { id: string; slug: string }[] };
+  const teamId = me.teams.find((team) => team.slug === DEMO_TEAM.slug)!.id;
+  await page.goto(`${inject('baseUrl')}/t/${teamId}`);
+  await page.getByRole('heading', { level: 1, name: DEMO_TEAM.name, exact: true }).waitFor();
 
-  await page.getByRole('link', { name: 'Presets' }).click();
+  await page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Presets' }).click();
   await page.getByRole('link', { name: DEMO_PRESET_NAMES.lt40 }).click();
   await page.waitForURL(/\/presets\/[0-9a-f-]{36}$/);
   const presetUrl = page.url();
@@ -62,16 +66,19 @@ it.skip('publishing a version from approved demo fits changes the forecast', asy
   // The heterogeneity words are shown before anything is published.
   await preview.getByText(/The shots (agree within|disagree more than) their intervals/).first().waitFor();
   await page.getByLabel('Note').fill('All five morning shots');
-  const disagree = (await preview.getByText(/The shots disagree more than their intervals/).count()) > 0;
+  // The seed fired HF-04 and HF-05 with a newer batch of heads and a tired valve seal
+  // (server/seed/demo-presets.ts), so pooling all five disagrees and the preview says so.
+  await preview.getByText(/The shots disagree more than their intervals/).first().waitFor();
   await page.getByRole('button', { name: 'Publish version' }).click();
-  if (disagree) {
-    // Fits that disagree are published only after a confirmation that states the heterogeneity.
-    const confirm = page.getByRole('dialog', { name: 'Publish although the fits disagree?' });
-    await confirm.getByTestId('publish-heterogeneity').getByText(/I² \d+%/).first().waitFor();
-    await confirm.getByRole('button', { name: 'Publish anyway' }).click();
-  } else {
-    expect(await page.getByRole('dialog').count()).toBe(0);
-  }
+  // Fits that disagree are published only after a confirmation that states the heterogeneity.
+  const confirm = page.getByRole('dialog', { name: 'Publish although the fits disagree?' });
+  await confirm.getByTestId('publish-heterogeneity').getByText(/I² \d+%/).first().waitFor();
+  // Cancelled, nothing is published.
+  await confirm.getByRole('button', { name: 'Cancel' }).click();
+  await confirm.waitFor({ state: 'hidden' });
+  expect(await page.getByTestId('version-3').count()).toBe(0);
+  await page.getByRole('button', { name: 'Publish version' }).click();
+  await confirm.getByRole('button', { name: 'Publish anyway' }).click();
   await page.getByText('Version 3 published.').waitFor();
   await page.getByTestId('version-3').getByText(/pooled from 5 approved fits/).first().waitFor();
   await page.getByTestId('version-3').getByText('All five morning shots').waitFor();
