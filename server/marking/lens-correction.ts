@@ -5,35 +5,15 @@
 // the picture are refused with a plain message naming the field.
 import type { z } from 'zod';
 import { coefficientProblem } from '../../shared/geometry/lens-distortion';
-import { fitPlumbLines, type FrameSize } from '../../shared/geometry/plumb-line-fit';
+import { lensFromStraightEdges } from '../../shared/geometry/lens-from-edges';
+import type { FrameSize } from '../../shared/geometry/plumb-line-fit';
 import { GeometryError } from '../../shared/geometry/points';
 import type { LensCorrection, LensInput } from '../../shared/schemas/camera';
 
 export function lensCorrectionOf(input: z.output<typeof LensInput> | null, frame: FrameSize): LensCorrection | null {
   if (!input) return null;
   const frameSize = { frameWidthPx: frame.widthPx, frameHeightPx: frame.heightPx };
-  if (input.straightLines) {
-    const fit = fitPlumbLines(input.straightLines, frame, input.clickSigmaPx !== undefined ? { clickSigmaPx: input.clickSigmaPx } : {});
-    const problem = coefficientProblem(fit.coefficients);
-    if (problem) {
-      throw new GeometryError(`The straight edges fit a distortion no lens this correction describes has (${problem}) Check the clicked points.`, 'lens.straightLines');
-    }
-    const { k1: s1, k2: s2 } = fit.standardUncertainty;
-    return {
-      model: fit.model,
-      source: 'straight-lines',
-      k1: fit.coefficients.k1,
-      k2: fit.coefficients.k2,
-      k1StdUnc: s1,
-      k2StdUnc: s2,
-      k1k2Correlation: s1 > 0 && s2 > 0 ? fit.covariance[0][1] / (s1 * s2) : 0,
-      residualRmsPx: fit.residualRmsPx,
-      terms: fit.terms,
-      straightLines: input.straightLines.map((l) => l.map((p) => ({ u: p.u, v: p.v }))),
-      notes: fit.notes,
-      ...frameSize,
-    };
-  }
+  if (input.straightLines) return lensFromStraightEdges(input.straightLines, frame, input.clickSigmaPx);
   const c = input.coefficients;
   if (!c) return null;
   const problem = coefficientProblem(c);
