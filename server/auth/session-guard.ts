@@ -22,6 +22,19 @@ export async function roleStamp(db: Db, userId: string): Promise<string> {
 const regenerate = (req: Request) => new Promise<void>((resolve, reject) => req.session.regenerate((err) => (err ? reject(err) : resolve())));
 const destroy = (req: Request) => new Promise<void>((resolve) => req.session.destroy(() => resolve()));
 
+/**
+ * For a request that changed the caller's own memberships (creating a team):
+ * the new session id goes out with this answer. Left to the guard, the next
+ * requests would race: the first renews the id and the others, still carrying
+ * the old one, would find their session gone.
+ */
+export async function renewSessionAfterOwnRoleChange(db: Db, req: Request): Promise<void> {
+  const { userId, signedInAt } = req.session;
+  if (!userId) return;
+  await regenerate(req);
+  Object.assign(req.session, { userId, signedInAt, roleStamp: await roleStamp(db, userId) });
+}
+
 export function sessionGuard(db: Db, absoluteMs: number): RequestHandler {
   return async (req, _res, next) => {
     try {

@@ -5,6 +5,7 @@ import { TeamParams } from '../../shared/schemas/common';
 import { TeamCreateBody, TeamView } from '../../shared/schemas/teams';
 import type { AppDeps } from '../app-deps';
 import { signedIn, teamRole } from '../auth/access';
+import { renewSessionAfterOwnRoleChange } from '../auth/session-guard';
 import { currentTeam, currentUser, input } from '../http/input';
 import type { RouteTable } from '../http/route-table';
 import { validate } from '../http/validate';
@@ -20,9 +21,11 @@ export function teamRoutes(api: RouteTable, { db }: AppDeps) {
     res.json(await teamsOf(db, currentUser(res).id));
   }
 
-  async function createTeam(_req: Request, res: Response) {
+  async function createTeam(req: Request, res: Response) {
     const { body } = input(res, { body: TeamCreateBody });
-    res.status(201).json(await createTeamFor(db, currentUser(res).id, body));
+    const team = await createTeamFor(db, currentUser(res).id, body);
+    await renewSessionAfterOwnRoleChange(db, req);
+    res.status(201).json(team);
   }
 
   async function showTeam(_req: Request, res: Response) {
